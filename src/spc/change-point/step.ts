@@ -1,0 +1,66 @@
+/**
+ * Step change in a normal mean: the maximum-likelihood change point of Samuel, Pignatiello & Calvin
+ * (1998), "Identifying the time of a step change with X̄ control charts", Quality Engineering 10(3),
+ * 521–527 (venue as in /work/shared/reference/published-values.md §4; the project issue cites it as
+ * Journal of Quality Technology 30(2), which we could not confirm — the paper itself was not read).
+ *
+ * Model: plotted values x₁..x_T (subgroup means or individuals) are normal with known in-control mean
+ * μ0 and known standard deviation σᵢ (σ/√nᵢ); after the last in-control subgroup τ the mean is μ1.
+ * With weights wᵢ = 1/σᵢ², profiling μ1 out of the log-likelihood gives
+ *   μ̂1(k) = Σ_{i>k} wᵢxᵢ / Σ_{i>k} wᵢ,
+ *   ℓ(k)   = (Σ_{i>k} wᵢ(xᵢ − μ0))² / (2 Σ_{i>k} wᵢ).
+ * With a constant σ this is (T−k)(x̄̄_{T,k} − μ0)²/(2σ²), the published statistic (T − t)(x̄̄ − μ0)²
+ * up to a constant factor, so the argmax is the published estimator. Derivation: for fixed k the
+ * log-likelihood is −½Σ_{i≤k} wᵢ(xᵢ−μ0)² − ½Σ_{i>k} wᵢ(xᵢ−μ1)²; substituting μ̂1 and subtracting the
+ * no-change log-likelihood leaves the expression above.
+ * Cost: O(T) through suffix sums.
+ */
+import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, precisionWeights, requireInside, requireSeries, summarizeProfile } from "./profile";
+
+export interface NormalChangePointOptions {
+  /** Known in-control mean μ0 of the plotted statistic. */
+  readonly center: number;
+  /** Known standard deviation of the plotted statistic (σ/√n), one number or one per point. */
+  readonly sigma: number | Float64Array;
+  /** Nominal level of the confidence set (default 0.95). */
+  readonly level?: number;
+}
+
+export interface StepChangePoint extends ChangePointSummary {
+  /** Estimated mean after the change, μ̂1. */
+  readonly newLevel: number;
+  /**
+   * (μ̂1 − μ0) in units of the plotted statistic's sigma after the change (with varying sigma, the
+   * root of the mean precision after the change: 1/√mean(wᵢ)).
+   */
+  readonly shiftInSigma: number;
+}
+
+/** Maximum-likelihood time of a step change in a normal mean, with its new level. */
+export function stepChangePoint(values: Float64Array, options: NormalChangePointOptions): StepChangePoint {
+  requireSeries(values, "step change point");
+  requireInside(options.center, "center", -Infinity, Infinity);
+  const weights = precisionWeights(options.sigma, values.length);
+  const count = values.length;
+  const profile = new Float64Array(count);
+  const weightedSums = new Float64Array(count);
+  const weightSums = new Float64Array(count);
+  let weightedSum = 0;
+  let weightSum = 0;
+  // Walk backwards: after processing index i, the sums cover i..T-1, i.e. candidate k = i - 1.
+  for (let index = count - 1; index >= 0; index--) {
+    const weight = weights[index] as number;
+    weightedSum += weight * ((values[index] as number) - options.center);
+    weightSum += weight;
+    weightedSums[index] = weightedSum;
+    weightSums[index] = weightSum;
+    profile[index] = (weightedSum * weightedSum) / (2 * weightSum);
+  }
+  const summary = summarizeProfile(profile, options.level ?? DEFAULT_CONFIDENCE_LEVEL);
+  const first = summary.index + 1;
+  const sumAfter = weightedSums[first] as number;
+  const precisionAfter = weightSums[first] as number;
+  const shift = sumAfter / precisionAfter;
+  const meanPrecision = precisionAfter / (count - first);
+  return { ...summary, newLevel: options.center + shift, shiftInSigma: shift * Math.sqrt(meanPrecision) };
+}
