@@ -1,0 +1,3 @@
+/** Evidence checks for candidate causes, and cycle helpers. */
+export { autocorrelation, whiteNoiseBand } from "./autocorrelation";
+export { periodogram, dominantPeriod, fisherGPValue, type Periodogram, type DominantPeriod } from "./periodogram";
