@@ -61,6 +61,11 @@ export interface BaselineSpec {
 export interface EwmaDesign {
   readonly lambda: number;
   readonly L: number;
+  /**
+   * Use the fixed asymptotic limits ±L·σ·√(λ/(2−λ)) from the first point instead of the exact
+   * time-varying ones (published ARL tables assume fixed limits). Default false.
+   */
+  readonly asymptoticLimits?: boolean;
 }
 
 /** Tabular CUSUM design: reference value k and decision interval h, both in sigma units. */
