@@ -1,0 +1,101 @@
+/**
+ * Attributes charts (Montgomery, Introduction to Statistical Quality Control, §7.2–7.3; NIST/SEMATECH
+ * e-Handbook §6.3.3):
+ * - p: p̂ᵢ = dᵢ/nᵢ, CL p̄ = Σd/Σn over the baseline, σᵢ = √(p̄(1 − p̄)/nᵢ): per-subgroup limits when the
+ *   sample sizes vary; limits truncated to [0, 1].
+ * - np: dᵢ, CL n·p̄, σ = √(n·p̄(1 − p̄)); needs one sample size n (the centre line would vary otherwise:
+ *   use the p chart for varying sizes); limits truncated to [0, n].
+ * - c: cᵢ, CL c̄, σ = √c̄ (Poisson); sizes are ignored (equal areas of opportunity by definition).
+ * - u: uᵢ = cᵢ/nᵢ with nᵢ inspection units, CL ū = Σc/Σn, σᵢ = √(ū/nᵢ): per-subgroup limits.
+ * ChartParameters.center holds p̄ (p, np), c̄ (c) or ū (u); sigma is NaN (it follows from the centre).
+ */
+import { assertDefectivesWithinSizes } from "../data";
+import { SpcInputError, type AttributesData, type ChartData, type ChartParameters, type StatisticSeries } from "../types";
+import { resolveBaseline } from "./baseline";
+import { requireAttributes, type EstimateOptions } from "./chart-input";
+import { constantSigma, limitSeries } from "./series";
+
+export type AttributesChart = "p" | "np" | "c" | "u";
+
+/** The one sample size of an np chart, or an error naming the first subgroup of another size. */
+function commonSampleSize(data: AttributesData, expected?: number): number {
+  const size = expected ?? data.sizes[0]!;
+  const index = data.sizes.findIndex((value) => value !== size);
+  if (index >= 0) {
+    throw new SpcInputError(
+      `subgroup ${index} has sample size ${data.sizes[index]} where ${size} is expected (the np chart needs one sample size; use the p chart)`,
+      index,
+    );
+  }
+  return size;
+}
+
+function checkedAttributes(chart: AttributesChart, data: ChartData): AttributesData {
+  const attributes = requireAttributes(data, chart);
+  if (chart === "p" || chart === "np") assertDefectivesWithinSizes(attributes);
+  return attributes;
+}
+
+export function estimateAttributes(chart: AttributesChart, data: ChartData, options: EstimateOptions): ChartParameters {
+  const attributes = checkedAttributes(chart, data);
+  const subgroupSize = chart === "np" ? commonSampleSize(attributes) : 1;
+  const baseline = resolveBaseline(attributes.counts.length, options.baseline);
+  let countTotal = 0;
+  let sizeTotal = 0;
+  for (let index = 0; index < attributes.counts.length; index++) {
+    if (baseline.used[index] === 1) {
+      countTotal += attributes.counts[index]!;
+      sizeTotal += chart === "c" ? 1 : attributes.sizes[index]!;
+    }
+  }
+  return { chart, center: countTotal / sizeTotal, sigma: NaN, subgroupSize, baseline: baseline.summary };
+}
+
+export function evaluateAttributes(chart: AttributesChart, data: ChartData, parameters: ChartParameters): StatisticSeries {
+  const attributes = checkedAttributes(chart, data);
+  const { counts, sizes } = attributes;
+  const rate = parameters.center;
+  const count = counts.length;
+  switch (chart) {
+    case "p":
+    case "u": {
+      const points = new Float64Array(count);
+      const sigma = new Float64Array(count);
+      const variance = chart === "p" ? rate * (1 - rate) : rate;
+      for (let index = 0; index < count; index++) {
+        points[index] = counts[index]! / sizes[index]!;
+        sigma[index] = Math.sqrt(variance / sizes[index]!);
+      }
+      return limitSeries({
+        key: chart,
+        points,
+        center: rate,
+        sigma,
+        floor: 0,
+        ceiling: chart === "p" ? 1 : Infinity,
+        zoneRulesByDefault: true,
+      });
+    }
+    case "np": {
+      const size = commonSampleSize(attributes, parameters.subgroupSize);
+      return limitSeries({
+        key: "np",
+        points: Float64Array.from(counts),
+        center: size * rate,
+        sigma: constantSigma(count, Math.sqrt(size * rate * (1 - rate))),
+        floor: 0,
+        ceiling: size,
+        zoneRulesByDefault: true,
+      });
+    }
+    case "c":
+      return limitSeries({
+        key: "c",
+        points: Float64Array.from(counts),
+        center: rate,
+        sigma: constantSigma(count, Math.sqrt(rate)),
+        floor: 0,
+        zoneRulesByDefault: true,
+      });
+  }
+}
