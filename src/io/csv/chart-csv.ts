@@ -10,7 +10,7 @@ import type { z } from "zod";
 import type { ChartType } from "../../../shared/constants";
 import type { ChartData } from "../../spc/types";
 import { CsvInputError, plural, type CsvProblem } from "./errors";
-import { attributesData, individualsData, variablesData } from "./interim-builders";
+import { attributesData, individualsData, subgroupCount, variablesData } from "../../spc/data";
 import { readCsvTable, type CsvRow, type CsvTable } from "./read-table";
 import { CHART_INPUT_LAYOUT, LAYOUT_COLUMNS, rowSchemas, type InputLayout } from "./row-schemas";
 
@@ -51,6 +51,7 @@ export function parseChartCsv(text: string, chart: ChartType, options: ChartCsvO
   const table = readCsvTable(text);
   const layout = CHART_INPUT_LAYOUT[chart];
   requireColumns(table, layout, chart);
+  if (table.rows.length === 0) throw new CsvInputError([{ line: table.headerLine, message: "the file has a header but no data rows" }]);
   const input = buildInput(table, layout, chart, options);
   const count = subgroupCount(input.data);
   const minimum = MINIMUM_SUBGROUPS[chart];
@@ -91,35 +92,36 @@ function validateRows<Row>(rows: readonly CsvRow[], schema: z.ZodType<Row>, prob
 function buildInput(table: CsvTable, layout: InputLayout, chart: ChartType, options: ChartCsvOptions): ChartInput {
   const schemas = rowSchemas(table.separator === ";");
   const problems: CsvProblem[] = [];
-  const finish = (input: ChartInput): ChartInput => {
+  // Chart data are built only from a file without problems (the builders reject empty data).
+  const finish = (build: () => ChartInput): ChartInput => {
     if (problems.length > 0) throw new CsvInputError(problems);
-    return input;
+    return build();
   };
   switch (layout) {
     case "values": {
       const rows = validateRows(table.rows, schemas.values, problems);
       const timestamps = rows.map(({ row }) => row.timestamp ?? "");
       const labels = timestamps.some((stamp) => stamp !== "") ? timestamps : undefined;
-      return finish({ data: individualsData(rows.map(({ row }) => row.value)), labels });
+      return finish(() => ({ data: individualsData(rows.map(({ row }) => row.value)), labels }));
     }
     case "subgroups": {
       const rows = validateRows(table.rows, schemas.subgroups, problems);
       const groups = groupRows(rows, problems);
       checkSubgroupSizes(groups, chart, options.subgroupSize, problems);
-      return finish({ data: variablesData(groups.map((group) => group.values)), labels: groups.map((group) => group.id) });
+      return finish(() => ({ data: variablesData(groups.map((group) => group.values)), labels: groups.map((group) => group.id) }));
     }
     case "defectives": {
       const rows = validateRows(table.rows, schemas.defectives, problems);
       if (chart === "np") checkEqualSizes(rows.map(({ line, row }) => ({ line, size: row.size })), problems);
-      return finish({ data: attributesData(rows.map(({ row }) => row.defectives), rows.map(({ row }) => row.size)) });
+      return finish(() => ({ data: attributesData(rows.map(({ row }) => row.defectives), rows.map(({ row }) => row.size)) }));
     }
     case "defects": {
       const rows = validateRows(table.rows, schemas.defects, problems);
-      return finish({ data: attributesData(rows.map(({ row }) => row.count), rows.map(() => 1)) });
+      return finish(() => ({ data: attributesData(rows.map(({ row }) => row.count)) }));
     }
     case "defects-per-unit": {
       const rows = validateRows(table.rows, schemas["defects-per-unit"], problems);
-      return finish({ data: attributesData(rows.map(({ row }) => row.count), rows.map(({ row }) => row.units)) });
+      return finish(() => ({ data: attributesData(rows.map(({ row }) => row.count), rows.map(({ row }) => row.units)) }));
     }
   }
 }
@@ -182,8 +184,4 @@ function checkEqualSizes(rows: readonly { line: number; size: number }[], proble
       problems.push({ line, column: "size", message: `sample size ${size} differs from the first row's ${first.size}: the np chart needs one sample size (use the p chart for varying sizes)` });
     }
   }
-}
-
-function subgroupCount(data: ChartData): number {
-  return data.kind === "variables" ? data.offsets.length - 1 : data.counts.length;
 }

@@ -35,7 +35,7 @@ export const LAYOUT_COLUMNS: Record<InputLayout, { required: readonly string[]; 
 
 // A plain decimal number: digits with an optional fraction and exponent. No thousands separators,
 // no "Infinity", no hexadecimal: what Number() would also accept but a person did not mean.
-const DECIMAL_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+export const DECIMAL_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /** A cell holding a number. With `decimalComma`, one comma may stand for the decimal point. */
 function numberCell(decimalComma: boolean) {
