@@ -24,6 +24,6 @@ export async function applyMigrations(options: TApplyMigrationsOptions): Promise
     );
     return output.appliedMigrationNames;
   } finally {
-    opened.close();
+    await opened.close();
   }
 }

@@ -2,14 +2,14 @@
  * Writes a new migration folder holding the SQL that takes a database from the state the existing
  * migrations produce to the state the Prisma schema describes.
  *
- * The engine's own `createMigration` cannot replay the history for SQLite when driven through an adapter,
- * so this asks it for `diff` from the migrations to the schema instead; the engine replays the history
- * into an in-memory shadow database supplied by the adapter, exactly as `prisma migrate dev` does.
+ * The engine's own `createMigration` cannot replay the history for SQLite when driven through an adapter
+ * (it wants a shadow database it is not given), so this asks for `diff` from the migrations directory to
+ * the schema instead, which replays the history into the adapter's in-memory shadow database.
  */
-import { mkdir, readFile, writeFile } from "node:fs/promises";
+import { mkdir, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { z } from "zod";
-import { openSchemaEngine } from "@/src/db/migrations/engine";
+import { diffToSchema } from "@/src/db/migrations/diff";
 import { readMigrationList } from "@/src/db/migrations/migration-list";
 import {
   LOCKFILE_NAME,
@@ -45,29 +45,13 @@ export async function createMigration(options: TCreateMigrationOptions): Promise
   const migrationsDirectory = options.migrationsDirectory ?? MIGRATIONS_DIRECTORY;
   const schemaFile = options.schemaFile ?? SCHEMA_FILE;
   const migrationsList = await readMigrationList(migrationsDirectory);
-  // Computing a diff touches no real database: the engine's main connection is an in-memory one.
-  const opened = await openSchemaEngine(":memory:", schemaFile);
-  try {
-    const schemaText = await readFile(schemaFile, "utf8");
-    const diff = await opened.run((engine) =>
-      engine.diff({
-        from: { tag: "migrations", ...migrationsList },
-        to: { tag: "schemaDatamodel", files: [{ path: schemaFile, content: schemaText }] },
-        script: true,
-        // Exit code 2 means "there is a difference", 0 means none (as `prisma migrate diff --exit-code`).
-        exitCode: true,
-        filters: { externalTables: [], externalEnums: [] },
-      }),
-    );
-    if (diff.exitCode !== 2 || !diff.stdout) return { created: false };
-    const folder = path.join(migrationsDirectory, `${migrationTimestamp(options.now)}_${name}`);
-    await mkdir(migrationsDirectory, { recursive: true });
-    // Not recursive: an existing folder of the same name and second is an error, never overwritten.
-    await mkdir(folder);
-    await writeFile(path.join(folder, MIGRATION_SCRIPT_NAME), diff.stdout);
-    await writeFile(path.join(migrationsDirectory, LOCKFILE_NAME), migrationsList.lockfile.content ?? "");
-    return { created: true, folder, script: diff.stdout };
-  } finally {
-    opened.close();
-  }
+  const script = await diffToSchema({ tag: "migrations", ...migrationsList }, schemaFile);
+  if (script === null) return { created: false };
+  const folder = path.join(migrationsDirectory, `${migrationTimestamp(options.now)}_${name}`);
+  await mkdir(migrationsDirectory, { recursive: true });
+  // Not recursive: an existing folder of the same name and second is an error, never overwritten.
+  await mkdir(folder);
+  await writeFile(path.join(folder, MIGRATION_SCRIPT_NAME), script);
+  await writeFile(path.join(migrationsDirectory, LOCKFILE_NAME), migrationsList.lockfile.content ?? "");
+  return { created: true, folder, script };
 }

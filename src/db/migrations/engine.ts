@@ -62,18 +62,24 @@ export type TOpenedEngine = {
   engine: SchemaEngine;
   /** Runs an engine command, turning its errors into SchemaEngineError with the driver's message. */
   run<T>(command: (engine: SchemaEngine) => Promise<T>): Promise<T>;
-  close(): void;
+  close(): Promise<void>;
 };
 
 /** Opens the engine on the SQLite file `databaseFile` (created if missing) with the schema at `schemaFile`. */
 export async function openSchemaEngine(databaseFile: string, schemaFile: string): Promise<TOpenedEngine> {
   await loadEngineModule();
   const sqlite = createSqliteAdapterFactory(databaseFile);
+  // Freeing the engine does not close the connections it opened: keep them to close them ourselves.
+  const connections: SqlDriverAdapter[] = [];
+  const track = (adapter: SqlDriverAdapter): SqlDriverAdapter => {
+    connections.push(adapter);
+    return acceptScripts(adapter);
+  };
   const factory = bindMigrationAwareSqlAdapterFactory({
     provider: sqlite.provider,
     adapterName: sqlite.adapterName,
-    connect: async () => acceptScripts(await sqlite.connect()),
-    connectToShadowDb: async () => acceptScripts(await sqlite.connectToShadowDb()),
+    connect: async () => track(await sqlite.connect()),
+    connectToShadowDb: async () => track(await sqlite.connectToShadowDb()),
   });
   const translate = (error: unknown): SchemaEngineError => {
     const text = error instanceof Error ? error.message : String(error);
@@ -85,7 +91,8 @@ export async function openSchemaEngine(databaseFile: string, schemaFile: string)
   };
   const schemaText = await readFile(schemaFile, "utf8");
   const engine = await engineBindings.SchemaEngine.new({ datamodels: [[schemaFile, schemaText]] }, () => {}, factory).catch(
-    (error: unknown) => {
+    async (error: unknown) => {
+      await Promise.all(connections.map((connection) => connection.dispose()));
       throw translate(error);
     },
   );
@@ -95,6 +102,9 @@ export async function openSchemaEngine(databaseFile: string, schemaFile: string)
       command(engine).catch((error: unknown) => {
         throw translate(error);
       }),
-    close: () => engine.free(),
+    close: async () => {
+      engine.free();
+      await Promise.all(connections.map((connection) => connection.dispose()));
+    },
   };
 }
