@@ -4,7 +4,7 @@
  * characteristic, so the cost does not grow with the length of the history.
  */
 import "server-only";
-import type { PrismaClient } from "../db/generated/client";
+import type { PrismaClient } from "../db/connect";
 import { groupByProcess, OVERVIEW_POINT_COUNT, type ProcessOverview } from "./summary";
 
 export async function loadCharacteristicOverview(prisma: PrismaClient): Promise<ProcessOverview[]> {
