@@ -4,33 +4,18 @@
  * Checks beyond single cells: required columns present; subgroup ids contiguous (a subgroup's rows
  * together, ids in order of appearance); equal subgroup sizes where the chart needs them (X-bar charts,
  * whose R and S limits use one n; np, whose limits use one sample size); X-bar subgroups of 2 to 25
- * values (the range of the tabulated constants); at least MINIMUM_SUBGROUPS points for the chart.
+ * values (the range of the tabulated constants); at least as many subgroups as the engine needs to
+ * estimate limits (MINIMUM_BASELINE_SUBGROUPS: two, the least from which a moving range or a spread can
+ * be formed; the analysis adds a note below 20, the common-practice minimum).
  */
 import type { z } from "zod";
 import type { ChartType } from "../../../shared/constants";
 import type { ChartData } from "../../spc/types";
 import { CsvInputError, plural, type CsvProblem } from "./errors";
+import { MINIMUM_BASELINE_SUBGROUPS } from "../../spc/charts";
 import { attributesData, individualsData, subgroupCount, variablesData } from "../../spc/data";
 import { readCsvTable, type CsvRow, type CsvTable } from "./read-table";
 import { CHART_INPUT_LAYOUT, LAYOUT_COLUMNS, rowSchemas, type InputLayout } from "./row-schemas";
-
-/**
- * Fewest subgroups (or values) a chart can be computed from. These are floors of computability, not of
- * good practice: a moving range needs two values, an X-bar chart's spread two subgroups to average
- * over; an attributes centre line exists from one sample. Limits from fewer than 20 subgroups are
- * flagged in the report's notes (common practice asks for 20 to 25).
- */
-export const MINIMUM_SUBGROUPS: Record<ChartType, number> = {
-  imr: 2,
-  ewma: 2,
-  cusum: 2,
-  "xbar-r": 2,
-  "xbar-s": 2,
-  p: 1,
-  np: 1,
-  c: 1,
-  u: 1,
-};
 
 /** Subgroup sizes the X-bar chart constants are defined for. */
 export const SUBGROUP_SIZE_RANGE = { min: 2, max: 25 } as const;
@@ -54,7 +39,7 @@ export function parseChartCsv(text: string, chart: ChartType, options: ChartCsvO
   if (table.rows.length === 0) throw new CsvInputError([{ line: table.headerLine, message: "the file has a header but no data rows" }]);
   const input = buildInput(table, layout, chart, options);
   const count = subgroupCount(input.data);
-  const minimum = MINIMUM_SUBGROUPS[chart];
+  const minimum = MINIMUM_BASELINE_SUBGROUPS;
   if (count < minimum) {
     const unit = layout === "subgroups" ? "subgroup" : "row";
     throw new CsvInputError([

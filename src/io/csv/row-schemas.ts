@@ -51,7 +51,12 @@ function numberCell(decimalComma: boolean) {
       context.addIssue(`"${text}" is not a number${hint}`);
       return z.NEVER;
     }
-    return Number(normalized);
+    const value = Number(normalized);
+    if (!Number.isFinite(value)) {
+      context.addIssue(`"${text}" is too large to be a number`);
+      return z.NEVER;
+    }
+    return value;
   });
 }
 
@@ -61,7 +66,6 @@ function countCell(decimalComma: boolean) {
   return numberCell(decimalComma).pipe(
     z
       .number()
-      .finite("is too large")
       .int({ error: notWhole })
       .nonnegative({ error: (issue) => `${String(issue.input)} is negative: a count cannot be negative` }),
   );
@@ -70,7 +74,6 @@ function countCell(decimalComma: boolean) {
 function positiveCell(decimalComma: boolean, wholeNumber: boolean) {
   const positive = z
     .number()
-    .finite("is too large")
     .positive({ error: (issue) => `${String(issue.input)} is not a valid size: it must be greater than zero` });
   return numberCell(decimalComma).pipe(wholeNumber ? positive.int({ error: notWhole }) : positive);
 }
@@ -83,10 +86,9 @@ const timestampCell = z
 
 /** The row schemas for a file, given whether it uses decimal commas. */
 export function rowSchemas(decimalComma: boolean) {
-  const measured = numberCell(decimalComma).pipe(z.number().finite("is too large"));
   return {
-    values: z.object({ value: measured, timestamp: timestampCell.optional() }),
-    subgroups: z.object({ subgroup: z.string().min(1, "is empty: a subgroup id is required"), value: measured }),
+    values: z.object({ value: numberCell(decimalComma), timestamp: timestampCell.optional() }),
+    subgroups: z.object({ subgroup: z.string().min(1, "is empty: a subgroup id is required"), value: numberCell(decimalComma) }),
     defectives: z
       .object({ defectives: countCell(decimalComma), size: positiveCell(decimalComma, true) })
       .refine((row) => row.defectives <= row.size, {
