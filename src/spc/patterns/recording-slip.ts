@@ -50,6 +50,12 @@ export interface SlipContext {
 
 const PLAIN_DECIMAL = /^-?(\d+\.?\d*|\.\d+)$/;
 
+/**
+ * Readings with more digits than this were not keyed by hand (they come from an instrument or a
+ * computation), and with so many digits some one-slip variant lands near any level by chance.
+ */
+export const MAXIMUM_KEYED_DIGITS = 7;
+
 /** Candidate corrections of `printed`, best first; empty when no single slip explains it. */
 export function recordingSlipCandidates(printed: string, context: SlipContext): SlipCandidate[] {
   const { level, sigma } = context;
@@ -59,7 +65,7 @@ export function recordingSlipCandidates(printed: string, context: SlipContext): 
     throw new SpcInputError("recording slip: sigma must be a finite number above 0");
   }
   const text = printed.trim();
-  if (!PLAIN_DECIMAL.test(text)) return [];
+  if (!PLAIN_DECIMAL.test(text) || text.replace(/[^0-9]/g, "").length > MAXIMUM_KEYED_DIGITS) return [];
   const sign = text.startsWith("-") ? "-" : "";
   const body = sign ? text.slice(1) : text;
   const printedValue = Number(text);
