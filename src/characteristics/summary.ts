@@ -67,8 +67,8 @@ export interface ProcessOverview {
 const ATTRIBUTES_STATISTIC_NAMES: Partial<Record<ChartType, string>> = {
   p: "fraction defective",
   np: "fraction defective",
-  c: "defects per sample",
-  u: "defects per unit",
+  c: "defect count",
+  u: "defect rate",
 };
 
 function toChartType(value: string, characteristicId: number): ChartType {
