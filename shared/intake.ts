@@ -1,0 +1,245 @@
+/**
+ * Input schemas for data intake: characteristics, subgroups, process events, limit revisions and
+ * corrections. Used by the HTTP API, the forms and the CSV import alike, so a value accepted in one
+ * place is accepted everywhere. Depends on zod and shared/constants only.
+ */
+import { z } from "zod";
+import {
+  CAUSE_CATEGORIES,
+  CHART_TYPES,
+  EVENT_KINDS,
+  RULE_IDS,
+  RULE_SET_NAMES,
+  VARIABLES_CHART_TYPES,
+  type ChartType,
+} from "./constants";
+
+/** Limits shared by schemas and forms. */
+export const INTAKE_LIMITS = {
+  nameLength: 100,
+  unitLength: 20,
+  textLength: 2000,
+  reasonMinLength: 3,
+  reasonLength: 500,
+  tagKeyLength: 40,
+  tagValueLength: 100,
+  tagsPerSubgroup: 10,
+  /** Variables charts: values per subgroup (the tabulated constants stop at 25). */
+  maxVariablesSubgroupSize: 25,
+  /** Subgroups accepted in one API request. */
+  subgroupsPerRequest: 1000,
+} as const;
+
+const ZName = z.string().trim().min(1, { error: "is required" }).max(INTAKE_LIMITS.nameLength);
+const ZReason = z
+  .string()
+  .trim()
+  .min(INTAKE_LIMITS.reasonMinLength, { error: `must say why, in at least ${INTAKE_LIMITS.reasonMinLength} characters` })
+  .max(INTAKE_LIMITS.reasonLength);
+const ZFinite = z.number({ error: "must be a number" }).refine(Number.isFinite, { error: "must be a finite number" });
+
+/** ISO 8601 date-time with an explicit offset or Z (a reading without a zone would be ambiguous). */
+export const ZTimestamp = z.iso.datetime({ offset: true, error: "must be an ISO 8601 date-time with a zone, e.g. 2026-03-01T06:00:00Z" });
+
+/** A rule set: a named set or a comma-separated list of rule ids. */
+export const ZRuleSet = z
+  .string()
+  .trim()
+  .refine(
+    (text) =>
+      (RULE_SET_NAMES as readonly string[]).includes(text) ||
+      (text.length > 0 && text.split(",").every((id) => (RULE_IDS as readonly string[]).includes(id.trim()))),
+    { error: `must be "we", "nelson" or a comma-separated list of ${RULE_IDS.join(", ")}` },
+  );
+
+/** Stratification tags: lower-case keys (cavity, lot, operator, shift, ...) to short text values. */
+export const ZTags = z
+  .record(
+    z
+      .string()
+      .max(INTAKE_LIMITS.tagKeyLength)
+      .regex(/^[a-z][a-z0-9-]*$/, { error: "tag names are lower-case letters, digits and hyphens" }),
+    z.string().trim().min(1).max(INTAKE_LIMITS.tagValueLength),
+  )
+  .refine((tags) => Object.keys(tags).length <= INTAKE_LIMITS.tagsPerSubgroup, {
+    error: `at most ${INTAKE_LIMITS.tagsPerSubgroup} tags per subgroup`,
+  });
+
+export const ZCharacteristicInput = z
+  .object({
+    processId: z.number().int().positive(),
+    name: ZName,
+    unit: z.string().trim().min(1, { error: "is required" }).max(INTAKE_LIMITS.unitLength),
+    chartType: z.enum(CHART_TYPES),
+    subgroupSize: z.number().int().min(1),
+    target: ZFinite.optional(),
+    lowerSpecLimit: ZFinite.optional(),
+    upperSpecLimit: ZFinite.optional(),
+    ruleSet: ZRuleSet.default("nelson"),
+    safetyRelated: z.boolean().default(false),
+    description: z.string().trim().max(INTAKE_LIMITS.textLength).optional(),
+  })
+  .strict()
+  .superRefine((input, context) => {
+    const variables = VARIABLES_CHART_TYPES.includes(input.chartType);
+    if (variables && input.subgroupSize > INTAKE_LIMITS.maxVariablesSubgroupSize) {
+      context.addIssue({
+        code: "custom",
+        path: ["subgroupSize"],
+        message: `must be at most ${INTAKE_LIMITS.maxVariablesSubgroupSize} for a variables chart`,
+      });
+    }
+    if (input.chartType === "imr" && input.subgroupSize !== 1) {
+      context.addIssue({ code: "custom", path: ["subgroupSize"], message: "must be 1 for an individuals chart" });
+    }
+    if ((input.chartType === "xbar-r" || input.chartType === "xbar-s") && input.subgroupSize < 2) {
+      context.addIssue({ code: "custom", path: ["subgroupSize"], message: "must be at least 2 for an X-bar chart" });
+    }
+    const { lowerSpecLimit: lsl, upperSpecLimit: usl, target } = input;
+    if (lsl !== undefined && usl !== undefined && !(lsl < usl)) {
+      context.addIssue({ code: "custom", path: ["upperSpecLimit"], message: "must be above the lower specification limit" });
+    }
+    if (target !== undefined && ((lsl !== undefined && target < lsl) || (usl !== undefined && target > usl))) {
+      context.addIssue({ code: "custom", path: ["target"], message: "must lie within the specification limits" });
+    }
+  });
+export type TCharacteristicInput = z.infer<typeof ZCharacteristicInput>;
+
+/**
+ * One subgroup as posted by a line system, typed at the press or read from a file. Which fields are
+ * required depends on the chart: see `subgroupSchemaFor`.
+ */
+export const ZSubgroupInput = z
+  .object({
+    timestamp: ZTimestamp,
+    /** Variables charts: the measured values. */
+    values: z.array(ZFinite).min(1).max(INTAKE_LIMITS.maxVariablesSubgroupSize).optional(),
+    /** Attributes charts: defectives (p, np) or defects (c, u). */
+    count: z.number().int({ error: "must be a whole number" }).nonnegative({ error: "must not be negative" }).optional(),
+    /** p and np charts: number inspected. */
+    size: z.number().int({ error: "must be a whole number" }).positive({ error: "must be positive" }).optional(),
+    /** u charts: inspection units (may be fractional, e.g. 2.5 hundred closures). */
+    units: ZFinite.refine((units) => units > 0, { error: "must be positive" }).optional(),
+    tags: ZTags.optional(),
+  })
+  .strict();
+export type TSubgroupInput = z.infer<typeof ZSubgroupInput>;
+
+/** The subgroup schema for one characteristic: the fields its chart needs, and no others. */
+export function subgroupSchemaFor(chartType: ChartType, subgroupSize: number) {
+  return ZSubgroupInput.superRefine((input, context) => {
+    const need = (field: "values" | "count" | "size" | "units", present: boolean, why: string) => {
+      if (!present) context.addIssue({ code: "custom", path: [field], message: `is required ${why}` });
+    };
+    const forbid = (field: "values" | "count" | "size" | "units", present: boolean, why: string) => {
+      if (present) context.addIssue({ code: "custom", path: [field], message: `is not used ${why}` });
+    };
+    const chart = `on a ${chartType} chart`;
+    if (VARIABLES_CHART_TYPES.includes(chartType)) {
+      need("values", input.values !== undefined, chart);
+      forbid("count", input.count !== undefined, chart);
+      forbid("size", input.size !== undefined, chart);
+      forbid("units", input.units !== undefined, chart);
+      if (input.values && input.values.length !== subgroupSize) {
+        context.addIssue({
+          code: "custom",
+          path: ["values"],
+          message: `must hold exactly ${subgroupSize} value${subgroupSize === 1 ? "" : "s"} (the subgroup size of this characteristic)`,
+        });
+      }
+      return;
+    }
+    forbid("values", input.values !== undefined, chart);
+    need("count", input.count !== undefined, chart);
+    if (chartType === "p" || chartType === "np") {
+      need("size", input.size !== undefined, chart);
+      forbid("units", input.units !== undefined, chart);
+      if (input.count !== undefined && input.size !== undefined && input.count > input.size) {
+        context.addIssue({ code: "custom", path: ["count"], message: "must not exceed the number inspected (size)" });
+      }
+      if (chartType === "np" && input.size !== undefined && input.size !== subgroupSize) {
+        context.addIssue({
+          code: "custom",
+          path: ["size"],
+          message: `must equal the characteristic's sample size ${subgroupSize} on an np chart`,
+        });
+      }
+    } else if (chartType === "u") {
+      need("units", input.units !== undefined, chart);
+      forbid("size", input.size !== undefined, chart);
+    } else {
+      forbid("size", input.size !== undefined, chart);
+      forbid("units", input.units !== undefined, chart);
+    }
+  });
+}
+
+export const ZSubgroupsPost = z
+  .object({
+    subgroups: z.array(ZSubgroupInput).min(1, { error: "must hold at least one subgroup" }).max(INTAKE_LIMITS.subgroupsPerRequest),
+  })
+  .strict();
+export type TSubgroupsPost = z.infer<typeof ZSubgroupsPost>;
+
+export const ZEventInput = z
+  .object({
+    occurredAt: ZTimestamp,
+    kind: z.enum(EVENT_KINDS),
+    causeCategory: z.enum(CAUSE_CATEGORIES).optional(),
+    description: z.string().trim().min(1, { error: "is required" }).max(INTAKE_LIMITS.textLength),
+    value: ZFinite.optional(),
+    unit: z.string().trim().min(1).max(INTAKE_LIMITS.unitLength).optional(),
+  })
+  .strict()
+  .superRefine((event, context) => {
+    if (event.unit !== undefined && event.value === undefined) {
+      context.addIssue({ code: "custom", path: ["value"], message: "is required when a unit is given" });
+    }
+  });
+export type TEventInput = z.infer<typeof ZEventInput>;
+
+/** A new limit version, computed from a baseline window of subgroup sequences (end exclusive). */
+export const ZLimitRevisionInput = z
+  .object({
+    baselineStart: z.number().int().nonnegative(),
+    baselineEnd: z.number().int().positive(),
+    exclusions: z
+      .array(z.object({ sequence: z.number().int().nonnegative(), reason: ZReason }).strict())
+      .default([]),
+    reason: ZReason,
+    approvedBy: ZName,
+  })
+  .strict()
+  .superRefine((input, context) => {
+    if (input.baselineEnd <= input.baselineStart) {
+      context.addIssue({ code: "custom", path: ["baselineEnd"], message: "must be after the baseline start" });
+    }
+    input.exclusions.forEach((exclusion, index) => {
+      if (exclusion.sequence < input.baselineStart || exclusion.sequence >= input.baselineEnd) {
+        context.addIssue({
+          code: "custom",
+          path: ["exclusions", index, "sequence"],
+          message: "must lie inside the baseline window",
+        });
+      }
+    });
+  });
+export type TLimitRevisionInput = z.infer<typeof ZLimitRevisionInput>;
+
+/** Correcting a recording mistake: the original stays on record. */
+export const ZCorrectionInput = z
+  .object({
+    newValue: ZFinite,
+    reason: ZReason,
+    correctedBy: ZName,
+  })
+  .strict();
+export type TCorrectionInput = z.infer<typeof ZCorrectionInput>;
+
+/** Turns zod issues into `{ path, message }` pairs for API answers and form messages. */
+export function describeIssues(error: z.ZodError): { path: string; message: string }[] {
+  return error.issues.map((issue) => ({
+    path: issue.path.map(String).join("."),
+    message: issue.message,
+  }));
+}
