@@ -13,7 +13,7 @@
  * Cost: O(T) with suffix sums. Positions are measured from the last point (i − (T−1) ≤ 0) so that
  * the sums stay of the size of the terms they combine and do not cancel catastrophically.
  */
-import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, precisionWeights, requireInside, requireSeries, summarizeProfile } from "./profile";
+import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, normalModelWeights, summarizeProfile } from "./profile";
 import type { NormalChangePointOptions } from "./step";
 
 export interface DriftChangePoint extends ChangePointSummary {
@@ -27,9 +27,7 @@ export interface DriftChangePoint extends ChangePointSummary {
 
 /** Maximum-likelihood start of a linear drift in a normal mean, with the drift per subgroup. */
 export function driftChangePoint(values: Float64Array, options: NormalChangePointOptions): DriftChangePoint {
-  requireSeries(values, "drift change point");
-  requireInside(options.center, "center", -Infinity, Infinity);
-  const weights = precisionWeights(options.sigma, values.length);
+  const weights = normalModelWeights(values, options.center, options.sigma, "drift change point");
   const count = values.length;
   const last = count - 1;
   const profile = new Float64Array(count);

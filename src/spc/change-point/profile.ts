@@ -98,6 +98,13 @@ export function requireInside(value: number, name: string, lower: number, upper:
   }
 }
 
+/** Checks a normal-model series and its known centre; returns the precision weights 1/σᵢ². */
+export function normalModelWeights(values: Float64Array, center: number, sigma: number | Float64Array, name: string): Float64Array {
+  requireSeries(values, name);
+  requireInside(center, "center", -Infinity, Infinity);
+  return precisionWeights(sigma, values.length);
+}
+
 /**
  * Per-point precision weights 1/σᵢ² of the plotted statistic. A single sigma applies to every point;
  * an array gives one sigma per point (subgroup sizes that vary).

@@ -15,7 +15,7 @@
  * no-change log-likelihood leaves the expression above.
  * Cost: O(T) through suffix sums.
  */
-import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, precisionWeights, requireInside, requireSeries, summarizeProfile } from "./profile";
+import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, normalModelWeights, summarizeProfile } from "./profile";
 
 export interface NormalChangePointOptions {
   /** Known in-control mean μ0 of the plotted statistic. */
@@ -38,9 +38,7 @@ export interface StepChangePoint extends ChangePointSummary {
 
 /** Maximum-likelihood time of a step change in a normal mean, with its new level. */
 export function stepChangePoint(values: Float64Array, options: NormalChangePointOptions): StepChangePoint {
-  requireSeries(values, "step change point");
-  requireInside(options.center, "center", -Infinity, Infinity);
-  const weights = precisionWeights(options.sigma, values.length);
+  const weights = normalModelWeights(values, options.center, options.sigma, "step change point");
   const count = values.length;
   const profile = new Float64Array(count);
   const weightedSums = new Float64Array(count);
