@@ -28,6 +28,11 @@ export function gapSentence(gap: LargestGap, labels: EvidenceLabels, measure: "m
   return `${subject} at ${tag} ${gap.higher} runs ${formatAmount(gap.difference, labels)} higher than at ${tag} ${gap.lower}`;
 }
 
+/** "4 levels of cavity" (no plural of the tag name is guessed). */
+export function levelsPhrase(count: number, labels: EvidenceLabels): string {
+  return labels.tag ? `${count} levels of ${labels.tag}` : `${count} levels`;
+}
+
 export function oneWayAnova(values: ArrayLike<number>, levels: readonly string[], labels: EvidenceLabels = {}): EvidenceResult<AnovaEffect> {
   const groups = groupByLevel(values, levels, "one-way ANOVA", 2);
   const flat = groups.flatMap((group) => Array.from(group.values));
@@ -47,7 +52,7 @@ export function oneWayAnova(values: ArrayLike<number>, levels: readonly string[]
     pValue: result.pValue,
     effect: { levels: summaries, largestGap: gap, etaSquared: result.treatment.ss / (result.treatment.ss + result.error.ss) },
     sentence:
-      `${gapSentence(gap, labels, "mean")}; one-way ANOVA across ${groups.length} ${labels.tag ?? "level"}s, ` +
+      `${gapSentence(gap, labels, "mean")}; one-way ANOVA across ${levelsPhrase(groups.length, labels)}, ` +
       `F(${df[0]}, ${df[1]}) = ${formatNumber(statistic)}, ${formatPValue(result.pValue)}`,
   };
 }

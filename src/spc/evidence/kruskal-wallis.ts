@@ -10,7 +10,7 @@
  */
 import kruskalTest from "@stdlib/stats-kruskal-test";
 import { SpcInputError } from "../types";
-import { gapSentence, type LevelComparisonEffect } from "./anova";
+import { gapSentence, type LevelComparisonEffect, levelsPhrase } from "./anova";
 import { groupByLevel, largestGap, median } from "./groups";
 import { type EvidenceLabels, type EvidenceResult, formatNumber, formatPValue } from "./sentence";
 
@@ -40,7 +40,7 @@ export function kruskalWallis(
     pValue: result.pValue,
     effect: { levels: summaries, largestGap: gap, epsilonSquared: result.statistic / (total - 1) },
     sentence:
-      `${gapSentence(gap, labels, "median")}; Kruskal–Wallis across ${groups.length} ${labels.tag ?? "level"}s, ` +
+      `${gapSentence(gap, labels, "median")}; Kruskal–Wallis across ${levelsPhrase(groups.length, labels)}, ` +
       `H = ${formatNumber(result.statistic)} (df ${result.df}), ${formatPValue(result.pValue)}`,
   };
 }

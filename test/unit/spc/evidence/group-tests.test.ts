@@ -37,7 +37,7 @@ describe("oneWayAnova", () => {
     expect(result.effect.largestGap).toEqual({ higher: "220", lower: "160", difference: 707 - 551.2 });
     expect(result.effect.etaSquared).toBeCloseTo(66870.55 / (66870.55 + 5339.2), 6);
     expect(result.sentence).toBe(
-      "etch rate at power 220 runs 156 Å/min higher than at power 160; one-way ANOVA across 4 powers, F(3, 16) = 66.8, p < 0.001",
+      "etch rate at power 220 runs 156 Å/min higher than at power 160; one-way ANOVA across 4 levels of power, F(3, 16) = 66.8, p < 0.001",
     );
   });
 
