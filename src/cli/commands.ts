@@ -5,5 +5,6 @@
  */
 import { analyzeCommand } from "./analyze";
 import type { Command } from "./command";
+import { verifyCommand } from "./verify";
 
-export const COMMANDS: readonly Command[] = [analyzeCommand];
+export const COMMANDS: readonly Command[] = [analyzeCommand, verifyCommand];
