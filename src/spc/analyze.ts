@@ -48,7 +48,8 @@ export interface AnalyzeOptions {
 
 export function analyze(chart: ChartType, data: ChartData, options: AnalyzeOptions = {}): TAnalyzeReport {
   const rules = resolveRuleSet(options.rules ?? DEFAULT_RULE_SET);
-  checkBaseline(options, subgroupCount(data));
+  const total = subgroupCount(data);
+  checkOptions(options, total);
   const parameters = estimateParameters(chart, data, {
     baseline: { start: 0, end: options.baseline, exclude: options.exclude },
     subgroupSize: options.subgroupSize,
@@ -68,10 +69,7 @@ export function analyze(chart: ChartType, data: ChartData, options: AnalyzeOptio
     notes.push(...describeSkipped(series.key, evaluation.skipped), ...evaluation.notes);
     charts[series.key] = statisticReport(series);
   }
-  if (options.labels !== undefined && options.labels.length !== result.statistics[0]?.points.length) {
-    throw new SpcInputError(`${options.labels.length} labels were given for ${result.statistics[0]?.points.length} subgroups`);
-  }
-  notes.push(...baselineNotes(parameters, result.statistics[0]?.points.length ?? 0));
+  notes.push(...baselineNotes(parameters, total));
   const capability = capabilityReport(chart, data, parameters, signals, options, notes);
   return {
     chart,
@@ -92,8 +90,11 @@ export function analyze(chart: ChartType, data: ChartData, options: AnalyzeOptio
   };
 }
 
-/** Baseline and exclusions stated in subgroups, checked here so the message speaks of the data. */
-function checkBaseline(options: AnalyzeOptions, total: number): void {
+/** Baseline, exclusions and labels against the data, checked here so the message speaks of the data. */
+function checkOptions(options: AnalyzeOptions, total: number): void {
+  if (options.labels !== undefined && options.labels.length !== total) {
+    throw new SpcInputError(`${options.labels.length} labels were given for ${total} subgroups`);
+  }
   const end = options.baseline ?? total;
   if (end > total) throw new SpcInputError(`the baseline of ${end} subgroups is longer than the data (${total} subgroups)`);
   for (const index of options.exclude ?? []) {

@@ -28,7 +28,7 @@ describe("help", () => {
 
 // [description, arguments, expected message fragment]; every one exits 2 with "error: ..." and no stack.
 const usageMistakes: [string, string[], string][] = [
-  ["unknown command", ["analyse"], 'unknown command "analyse" (commands: analyze)'],
+  ["unknown command", ["analyse"], 'unknown command "analyse" (commands: analyze'],
   ["unknown option", ["analyze", `${FIXTURES}/flow-rate.csv`, "--chart", "imr", "--colour"], "error: Unknown option '--colour'. Run with --help for usage.\n"],
   ["option without its value", ["analyze", `${FIXTURES}/flow-rate.csv`, "--chart"], "Option '--chart <value>' argument missing"],
   ["no file", ["analyze", "--chart", "imr"], "analyze needs a CSV file"],
