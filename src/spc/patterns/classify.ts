@@ -4,12 +4,12 @@
  * test a published feature with a threshold calibrated by seeded simulation
  * (scripts/calibrate-patterns.ts; the confusion matrix is in docs/patterns-and-verification.md):
  *
+ * (Outliers are taken out before, by `findIsolatedPoints`: a point beyond the 3σ limits that stands at
+ * least `outlierDistance` σ from its neighbours, whose own level and scatter look in control
+ * (isolation.ts); the signals that include it go with it, and the rest of the episode is read here.)
  * 1. stratification: Nelson's test 7 fired and the points over the episode hug the centre, mean z² at
  *    most `stratificationMeanSquare` over at least `stratificationLength` subgroups (a single chance run
  *    of 15 inside ±1σ is too short and too common to call);
- * (outliers are taken out before, by `findIsolatedPoints`: a point beyond the 3σ limits that stands at
- *    least `outlierDistance` σ from its neighbours, whose own level and scatter look in control
- *    (isolation.ts); the signals that include it go with it, and the rest of the episode is read here);
  * 2. cycle: a periodogram peak with period between 3 and a third of the window that Fisher's g test finds
  *    significant (p < `cyclePValue`), confirmed by the autocorrelation: positive at the period
  *    (≥ `cycleAutocorrelation`) and negative at half the period (a step or drift gives positive

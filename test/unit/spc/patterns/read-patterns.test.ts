@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { estimateParameters, evaluateChart } from "@/src/spc/charts";
 import { individualsData, variablesData } from "@/src/spc/data";
 import { calibratePatterns, DEFAULT_CALIBRATION_DESIGN, SIMULATED_KINDS } from "@/src/spc/patterns/calibration";
-import { readPatterns, simulatePattern } from "@/src/spc/patterns";
+import { patternReport, readPatterns, simulatePattern } from "@/src/spc/patterns";
 import { createRng } from "@/src/spc/random";
 import { evaluateRules, resolveRuleSet } from "@/src/spc/rules";
 import type { ChartData, ChartType } from "@/src/spc/types";
@@ -81,5 +81,17 @@ describe("readPatterns on constructed cases", () => {
     const outlier = patterns.find((pattern) => pattern.kind === "outlier");
     expect(outlier?.evidence.recordingSlip).toMatchObject({ printed: "26.1", valueIndex: 35 * 4 + 2 });
     expect(outlier?.evidence.recordingSlip?.candidates[0]).toMatchObject({ slip: "misplaced-decimal", value: 2.61 });
+  });
+});
+
+describe("patternReport", () => {
+  test("lists each pattern's change point with its chart and kind", () => {
+    const rng = createRng(5);
+    const { data } = simulatePattern({ kind: "shift", subgroupSize: 5, baseline: 30, monitoring: 30, onset: 40, size: 3 }, rng);
+    const result = evaluateChart(data, estimateParameters("xbar-r", data, { baseline: { end: 30 } }));
+    const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet("nelson")).signals);
+    const report = patternReport(result, signals, data);
+    expect(report.changePoints.length).toBe(report.patterns.filter((pattern) => pattern.changePoint).length);
+    expect(report.changePoints[0]).toMatchObject({ chart: "xbar", kind: "shift", model: "step" });
   });
 });
