@@ -1,13 +1,12 @@
 // npm run db:migrate: applies pending migrations in prisma/migrations to the DATABASE_URL database.
-import { mkdir } from "node:fs/promises";
-import path from "node:path";
 import { environment } from "@/src/config/env";
+import { checkDatabaseFile } from "@/src/db/database-file";
 import { applyMigrations } from "@/src/db/migrations/apply-migrations";
 import { runScript } from "@/src/db/script-runner";
 
 await runScript(async () => {
   const { databaseFile } = environment();
-  await mkdir(path.dirname(databaseFile), { recursive: true });
+  await checkDatabaseFile(databaseFile);
   const applied = await applyMigrations({ databaseFile });
   console.log(
     applied.length === 0

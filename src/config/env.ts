@@ -41,7 +41,9 @@ export type TEnvironment = {
 export function databaseFileFromUrl(url: string): string {
   const parsed = ZDatabaseUrl.safeParse(url);
   if (!parsed.success) {
-    throw new EnvironmentError(`DATABASE_URL "${url}" ${parsed.error.issues.map((issue) => issue.message).join("; ")}.`);
+    throw new EnvironmentError(
+      `DATABASE_URL "${url}" ${parsed.error.issues.map((issue) => issue.message).join("; ")}. Correct it, or unset it to use the default (${DEFAULT_DATABASE_URL}).`,
+    );
   }
   return path.resolve(process.cwd(), parsed.data.slice("file:".length));
 }
@@ -53,7 +55,9 @@ export function parseEnvironment(source: NodeJS.ProcessEnv = process.env): TEnvi
   const parsed = ZEnvironment.safeParse(present);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => `${issue.path.join(".")} ${issue.message}`);
-    throw new EnvironmentError(`Invalid environment: ${problems.join("; ")}.`);
+    throw new EnvironmentError(
+      `Invalid environment: ${problems.join("; ")}. Correct the variable, or unset it to use the default (DATABASE_URL=${DEFAULT_DATABASE_URL}).`,
+    );
   }
   const databaseFile = databaseFileFromUrl(parsed.data.DATABASE_URL);
   return { databaseFile, databaseUrl: `file:${databaseFile}`, nodeEnv: parsed.data.NODE_ENV };

@@ -3,7 +3,7 @@
  * written, and explains in one paragraph what to do when it cannot. A damaged file or a bad path is a
  * situation the person starting the app must fix, not a bug, so it gets a message rather than a stack trace.
  */
-import { mkdir } from "node:fs/promises";
+import { mkdir, stat } from "node:fs/promises";
 import path from "node:path";
 import Database from "better-sqlite3";
 
@@ -35,6 +35,8 @@ function describeCode(code: string | undefined): string {
     case "ENOTDIR":
     case "EEXIST":
       return "part of its directory path is an existing file, not a directory";
+    case "EISDIR":
+      return "it is a directory, not a file";
     case "ENOENT":
       return "its directory cannot be created (a parent directory does not exist and cannot be made)";
     default:
@@ -43,13 +45,45 @@ function describeCode(code: string | undefined): string {
 }
 
 function advice(code: string | undefined, databaseFile: string): string {
-  if (code === "SQLITE_NOTADB" || code === "SQLITE_CORRUPT") {
-    return `Move the file aside (or delete it, losing its data) and start again to get a fresh database with the demo plant, ${WAY_OUT}`;
+  switch (code) {
+    case "SQLITE_NOTADB":
+    case "SQLITE_CORRUPT":
+      return `Move the file aside (or delete it, losing its data) and start again to get a fresh database with the demo plant, ${WAY_OUT}`;
+    case "SQLITE_BUSY":
+    case "SQLITE_LOCKED":
+      return `Stop the other process using ${path.basename(databaseFile)} and try again, ${WAY_OUT}`;
+    case "ENOTDIR":
+    case "EEXIST":
+    case "ENOENT":
+    case "EISDIR":
+      return `Choose a file path whose directories exist or can be created, ${WAY_OUT}`;
+    default:
+      return `Make that location writable for this user, ${WAY_OUT}`;
   }
-  if (code === "SQLITE_BUSY" || code === "SQLITE_LOCKED") {
-    return `Stop the other process using ${path.basename(databaseFile)} and try again, ${WAY_OUT}`;
+}
+
+/**
+ * Creates `directory` and its missing parents one level at a time. (Node's recursive mkdir never returns
+ * under some virtual file systems such as /proc; this fails there with the first level's error instead.)
+ */
+async function createDirectory(directory: string): Promise<void> {
+  const missing: string[] = [];
+  let current = directory;
+  for (;;) {
+    const existing = await stat(current).catch((error: NodeJS.ErrnoException) => {
+      if (error.code === "ENOENT") return undefined;
+      throw error;
+    });
+    if (existing !== undefined) {
+      if (!existing.isDirectory()) throw Object.assign(new Error(`${current} is a file`), { code: "ENOTDIR" });
+      break;
+    }
+    missing.unshift(current);
+    const parent = path.dirname(current);
+    if (parent === current) break;
+    current = parent;
   }
-  return `Fix the permissions of that location, ${WAY_OUT}`;
+  for (const level of missing) await mkdir(level);
 }
 
 /** A one-paragraph explanation of why `databaseFile` cannot be used, from a Node or SQLite error. */
@@ -69,7 +103,10 @@ export function explainDatabaseFileProblem(databaseFile: string, error: unknown)
  */
 export async function checkDatabaseFile(databaseFile: string): Promise<void> {
   try {
-    await mkdir(path.dirname(databaseFile), { recursive: true });
+    await createDirectory(path.dirname(databaseFile));
+    if ((await stat(databaseFile).catch(() => undefined))?.isDirectory()) {
+      throw Object.assign(new Error(`${databaseFile} is a directory`), { code: "EISDIR" });
+    }
     const database = new Database(databaseFile);
     try {
       const integrity = database.pragma("quick_check", { simple: true });
