@@ -28,7 +28,7 @@ export interface CsvTable {
   readonly rows: readonly CsvRow[];
 }
 
-const BYTE_ORDER_MARK = "\uFEFF";
+export const BYTE_ORDER_MARK = "\uFEFF";
 
 /** The separator the header line uses. */
 export function detectSeparator(text: string): CsvSeparator {
@@ -72,13 +72,13 @@ export function readCsvTable(source: string): CsvTable {
   return { separator, columns: header, headerLine, rows };
 }
 
-function describeParseError(error: Papa.ParseError): string {
+export function describeParseError(error: Papa.ParseError): string {
   if (error.code === "MissingQuotes") return "a quoted cell is not closed";
   if (error.code === "InvalidQuotes") return "a quote character inside an unquoted cell";
   return error.message;
 }
 
-function readHeader(cells: string[], line: number, problems: CsvProblem[]): string[] {
+export function readHeader(cells: string[], line: number, problems: CsvProblem[]): string[] {
   const seen = new Set<string>();
   cells.forEach((name, position) => {
     const key = name.toLowerCase();
@@ -89,7 +89,7 @@ function readHeader(cells: string[], line: number, problems: CsvProblem[]): stri
   return cells;
 }
 
-function makeRow(cells: string[], header: string[], line: number, separator: CsvSeparator, problems: CsvProblem[]): CsvRow {
+export function makeRow(cells: string[], header: string[], line: number, separator: CsvSeparator, problems: CsvProblem[]): CsvRow {
   if (cells.length !== header.length) {
     const hint =
       separator === "," && cells.length > header.length

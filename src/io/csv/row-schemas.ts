@@ -38,7 +38,7 @@ export const LAYOUT_COLUMNS: Record<InputLayout, { required: readonly string[]; 
 export const DECIMAL_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /** A cell holding a number. With `decimalComma`, one comma may stand for the decimal point. */
-function numberCell(decimalComma: boolean) {
+export function numberCell(decimalComma: boolean) {
   return z.string().transform((text, context) => {
     if (text === "") {
       context.addIssue("is empty: a number is required");
@@ -62,7 +62,7 @@ function numberCell(decimalComma: boolean) {
 
 const notWhole = (issue: { input?: unknown }) => `${String(issue.input)} is not a whole number`;
 
-function countCell(decimalComma: boolean) {
+export function countCell(decimalComma: boolean) {
   return numberCell(decimalComma).pipe(
     z
       .number()
@@ -71,7 +71,7 @@ function countCell(decimalComma: boolean) {
   );
 }
 
-function positiveCell(decimalComma: boolean, wholeNumber: boolean) {
+export function positiveCell(decimalComma: boolean, wholeNumber: boolean) {
   const positive = z
     .number()
     .positive({ error: (issue) => `${String(issue.input)} is not a valid size: it must be greater than zero` });
