@@ -19,7 +19,7 @@ export class EnvironmentError extends Error {
 const ZDatabaseUrl = z
   .string()
   .trim()
-  .startsWith("file:", { error: 'must be a SQLite file URL starting with "file:", e.g. file:./data/assignable.db' })
+  .startsWith("file:", { abort: true, error: 'must be a SQLite file URL starting with "file:", e.g. file:./data/assignable.db' })
   .refine((url) => url.slice("file:".length).length > 0, { error: "names no file after file:" })
   .refine((url) => !url.includes("?"), { error: "must not carry query parameters (the driver ignores them)" })
   .refine((url) => url !== "file::memory:", { error: "must name a file: an in-memory database would lose every write" });

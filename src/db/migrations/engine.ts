@@ -21,6 +21,8 @@ export class SchemaEngineError extends Error {
 }
 
 let loading: Promise<void> | undefined;
+/** The text of the last Rust panic inside the engine, if any (see loadEngineModule). */
+let lastPanic: string | undefined;
 
 /** Instantiates the WebAssembly module once per process. */
 function loadEngineModule(): Promise<void> {
@@ -41,7 +43,6 @@ function loadEngineModule(): Promise<void> {
   return loading;
 }
 
-let lastPanic: string | undefined;
 
 /**
  * The engine sends whole migration scripts through `executeRaw`, which better-sqlite3 runs one statement at
