@@ -1,0 +1,1 @@
+export { recordEvent, eventsFor, type TEventFields } from "./record";
