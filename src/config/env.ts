@@ -49,7 +49,7 @@ export function databaseFileFromUrl(url: string): string {
 }
 
 /** Parses an environment (process.env by default); throws EnvironmentError naming the bad variable. */
-export function parseEnvironment(source: NodeJS.ProcessEnv = process.env): TEnvironment {
+export function parseEnvironment(source: Readonly<Record<string, string | undefined>> = process.env): TEnvironment {
   // An empty variable counts as unset, as shells and .env files often leave them.
   const present = Object.fromEntries(Object.entries(source).filter(([, value]) => value !== undefined && value !== ""));
   const parsed = ZEnvironment.safeParse(present);
