@@ -1,4 +1,4 @@
-// npm run db:seed [-- --seed <n>] [-- --end <ISO time>] [-- --force]: applies pending migrations to the
+// npm run db:seed -- [--seed <n>] [--end <ISO time>] [--force]: applies pending migrations to the
 // DATABASE_URL database and writes the demo plant into it when it holds no plant yet. With --force, the
 // existing plant data (every site, and with it its processes, characteristics, subgroups and events) is
 // deleted first, in the same transaction as the new plant is written, so the demo starts afresh.

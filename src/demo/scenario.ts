@@ -26,7 +26,9 @@ import {
   DEMO_SITE_NAME,
   FLASH,
   HEATER_DRIFT,
+  SHIFTS_PER_DAY,
   SHORT_SHOT,
+  SUBGROUPS_PER_SHIFT,
   SUBGROUP_COUNT,
   WEIGHT_SHIFT,
 } from "./plant";
@@ -46,6 +48,7 @@ export interface DemoScenarioOptions {
 /** Melt flow index of a typical lot (g/10 min) and of the lot that makes closures heavier. */
 const TYPICAL_MELT_FLOW = 12;
 const HEAVY_LOT_MELT_FLOW = 13.6;
+const HOURS_PER_SUBGROUP = 24 / (SHIFTS_PER_DAY * SUBGROUPS_PER_SHIFT);
 
 function resinLots(count: number, anchors: readonly number[], rng: Rng): ResinLot[] {
   const starts = lotStarts(count, anchors, rng);
@@ -145,7 +148,8 @@ function plantedEpisodes(heavyLot: string, slip: DigitSlip): PlantedEpisode[] {
       description:
         `Fouled chiller on press 1: the flash-defect rate swings sinusoidally by ` +
         `±${CHILLER_CYCLE.relativeAmplitude * 100}% around ${FLASH.ratePerUnit} per 100 closures with a period of ` +
-        `${CHILLER_CYCLE.period} subgroups (32 hours); cleaning the chiller right after ${CHILLER_CYCLE.last} ends it.`,
+        `${CHILLER_CYCLE.period} subgroups (${CHILLER_CYCLE.period * HOURS_PER_SUBGROUP} hours); cleaning the ` +
+        `chiller right after ${CHILLER_CYCLE.last} ends it.`,
     },
     {
       kind: "mixture",

@@ -38,7 +38,7 @@ export interface PressSchedule {
 }
 
 /** The latest shift start (06:00, 14:00 or 22:00 UTC) at or before `end`. */
-export function lastShiftBoundary(end: Date): Date {
+function lastShiftBoundary(end: Date): Date {
   const dayStart = Date.UTC(end.getUTCFullYear(), end.getUTCMonth(), end.getUTCDate());
   // The previous day's night shift (22:00, i.e. hour -2 of this day) covers ends before 06:00.
   const startHours = [-2, ...SHIFTS.map((shift) => shift.startHour)];
