@@ -4,11 +4,12 @@
  * a lower zone boundary below the statistic's floor) are null.
  *
  * Contract fields: `chart`, `charts` (per statistic: `center`, `ucl`, `lcl`, `points`), `signals`,
- * `capability`. Additive fields (documented in docs/cli.md): per statistic `warning` limits and `zones`;
+ * `capability`, `patterns`, `changePoints`. Additive fields (documented in docs/cli.md): per statistic `warning` limits and `zones`;
  * `rules`, `parameters`, `labels`, `notes`.
  */
 import { z } from "zod";
-import { CHART_TYPES, RULE_IDS, STATISTIC_KEYS, type ChartType, type StatisticKey } from "./constants";
+import { CAUSE_CATEGORIES, CHART_TYPES, RULE_IDS, STATISTIC_KEYS, type ChartType, type StatisticKey } from "./constants";
+import { PATTERN_KINDS } from "./patterns";
 
 /** The plotted statistics of each chart, in the order they are reported. */
 export const CHART_STATISTIC_KEYS: Readonly<Record<ChartType, readonly StatisticKey[]>> = {
@@ -86,6 +87,36 @@ export const ZCapabilityReport = z.discriminatedUnion("status", [
   }),
 ]);
 
+/** A change point as the pattern reader reports it: the last in-control subgroup and its window. */
+const ZChangePoint = z.object({
+  model: z.enum(["step", "drift", "poisson", "binomial"]),
+  index: z.number().int().min(-1),
+  window: z.object({ start: z.number().int(), end: z.number().int(), level: z.number() }),
+});
+
+/** One pattern read from a run of signals (src/spc/patterns); `evidence` holds the numbers behind it. */
+export const ZPatternReport = z.object({
+  kind: z.enum(PATTERN_KINDS),
+  chart: z.enum(STATISTIC_KEYS),
+  start: z.number().int().nonnegative(),
+  end: z.number().int().nonnegative(),
+  changePoint: ZChangePoint.optional(),
+  period: z.number().positive().optional(),
+  evidence: z.looseObject({
+    rules: z.array(z.enum(RULE_IDS)),
+    /** An odd reading one keying slip away from its neighbours' level, with the likely intended values. */
+    recordingSlip: z
+      .object({
+        printed: z.string(),
+        valueIndex: z.number().int().nonnegative(),
+        candidates: z.array(z.object({ slip: z.string(), text: z.string(), value: z.number(), distance: z.number() })),
+      })
+      .optional(),
+  }),
+  causes: z.array(z.object({ category: z.enum(CAUSE_CATEGORIES), reason: z.string().min(1) })),
+});
+export type TPatternReport = z.infer<typeof ZPatternReport>;
+
 export const ZAnalyzeReport = z
   .object({
     chart: z.enum(CHART_TYPES),
@@ -93,6 +124,10 @@ export const ZAnalyzeReport = z
     signals: z.array(ZSignalReport),
     /** null when no specification limit was given. */
     capability: ZCapabilityReport.nullable(),
+    /** What kind of change each run of signals looks like, with the causes to check first. */
+    patterns: z.array(ZPatternReport),
+    /** The change points of those patterns, listed on their own for searching the event log. */
+    changePoints: z.array(ZChangePoint.extend({ chart: z.enum(STATISTIC_KEYS), kind: z.enum(PATTERN_KINDS) })),
     /** The rules evaluated (before the per-statistic skips listed in `notes`). */
     rules: z.array(z.enum(RULE_IDS)),
     parameters: z.object({

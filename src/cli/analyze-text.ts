@@ -1,9 +1,10 @@
 /**
  * The analyze report as text for a person: what was charted, each statistic's centre and limits, the
- * signals with the rule in words, capability, and notes. Subgroup numbers are 0-based as in the JSON.
+ * signals with the rule in words, the patterns read from them, capability, and notes. Subgroup numbers are 0-based as in the JSON.
  */
-import type { TAnalyzeReport, TCapabilityReport, TSignalReport, TStatisticReport } from "../../shared/analyze-report";
+import type { TAnalyzeReport, TCapabilityReport, TPatternReport, TSignalReport, TStatisticReport } from "../../shared/analyze-report";
 import { CHART_TYPE_LABELS, type RuleId } from "../../shared/constants";
+import { PATTERN_KIND_LABELS } from "../../shared/patterns";
 import { RULE_DEFINITIONS } from "../spc/rules";
 
 /** Seven significant digits: enough for any published limit, without float noise. */
@@ -71,6 +72,25 @@ function signalLine(signal: TSignalReport, labels: readonly string[] | undefined
   return `  ${signal.chart}: ${title} — ${span}${named}${side}; fires at ${formatIndices(signal.firing)}`;
 }
 
+/** "Shift in level on xbar, subgroups 40–52: changed after subgroup 39 (window 37–41, 95%)", then causes. */
+function patternLines(pattern: TPatternReport): string[] {
+  const span = pattern.start === pattern.end ? `subgroup ${pattern.start}` : `subgroups ${pattern.start}–${pattern.end}`;
+  const facts: string[] = [];
+  if (pattern.changePoint !== undefined) {
+    const { index, window } = pattern.changePoint;
+    const after = index < 0 ? "before the first subgroup" : `after subgroup ${index}`;
+    facts.push(`changed ${after} (window ${window.start}–${window.end}, ${formatNumber(window.level * 100)}%)`);
+  }
+  if (pattern.period !== undefined) facts.push(`period ${formatNumber(pattern.period)} subgroups`);
+  const slip = pattern.evidence.recordingSlip;
+  const likely = slip?.candidates[0];
+  if (slip !== undefined && likely !== undefined) facts.push(`${slip.printed} may be ${likely.text} (${likely.slip})`);
+  return [
+    `  ${pattern.chart}: ${PATTERN_KIND_LABELS[pattern.kind]} — ${span}${facts.length > 0 ? `: ${facts.join("; ")}` : ""}`,
+    ...pattern.causes.map((cause) => `      check ${cause.category}: ${cause.reason}`),
+  ];
+}
+
 function capabilityLines(capability: TCapabilityReport): string[] {
   if (capability.status === "refused") return ["Capability: not computed.", `  ${capability.reason}`];
   const percent = `${formatNumber(capability.confidence * 100)}%`;
@@ -112,6 +132,7 @@ export function formatAnalyzeText(report: TAnalyzeReport): string {
       : `Signals (${report.signals.length}; rules: ${report.rules.join(", ")}):`,
     ...report.signals.map((signal) => signalLine(signal, report.labels)),
   ];
+  if (report.patterns.length > 0) lines.push("", "Patterns:", ...report.patterns.flatMap(patternLines));
   if (report.capability !== null) lines.push("", ...capabilityLines(report.capability));
   if (report.notes.length > 0) lines.push("", "Notes:", ...report.notes.map((note) => `  - ${note}`));
   return `${lines.join("\n")}\n`;

@@ -1,8 +1,9 @@
 /**
  * One analysis of a data set, as the `analyze` command reports it: Phase I parameters from a baseline
  * window (with excluded subgroups left out), the chart evaluated with those frozen parameters on every
- * point (Phase II), the run rules on each plotted statistic, and process capability when specification
- * limits are given. A pure composition of the engine's functions; the report is plain JSON
+ * point (Phase II), the run rules on each plotted statistic, process capability when specification
+ * limits are given; then the patterns read from the signals (src/spc/patterns) with their change
+ * points. A pure composition of the engine's functions; the report is plain JSON
  * (shared/analyze-report.ts), with numbers that do not exist written as null.
  *
  * Capability is computed from the baseline's values with the within-subgroup σ of the chart (Cp, Cpk)
@@ -10,11 +11,12 @@
  * (indices of an unstable process predict nothing: Montgomery, Introduction to Statistical Quality
  * Control, §8.2) or when the capability module finds too few values.
  */
-import { type TAnalyzeReport, type TCapabilityReport, type TStatisticReport } from "../../shared/analyze-report";
+import { type TAnalyzeReport, type TCapabilityReport, type TPatternReport, type TStatisticReport } from "../../shared/analyze-report";
 import { RULE_IDS, VARIABLES_CHART_TYPES, type RuleId } from "../../shared/constants";
 import { computeCapability } from "./capability";
 import { estimateParameters, evaluateChart, zoneOf } from "./charts";
 import { subgroupCount } from "./data";
+import { patternReport } from "./patterns/report";
 import { evaluateRules, resolveRuleSet, type SkippedRule } from "./rules";
 import { SpcInputError, type ChartData, type ChartParameters, type ChartType, type CusumDesign, type EwmaDesign, type Signal, type StatisticSeries } from "./types";
 
@@ -71,11 +73,14 @@ export function analyze(chart: ChartType, data: ChartData, options: AnalyzeOptio
   }
   notes.push(...baselineNotes(parameters, total));
   const capability = capabilityReport(chart, data, parameters, signals, options, notes);
+  const { patterns, changePoints } = patternReport(result, signals, data);
   return {
     chart,
     charts,
     signals: signals.map((signal) => ({ ...signal, firing: [...signal.firing] })),
     capability,
+    patterns: patterns.map((pattern) => structuredClone(pattern) as TPatternReport),
+    changePoints: changePoints.map((changePoint) => structuredClone(changePoint)),
     rules,
     parameters: {
       center: parameters.center,

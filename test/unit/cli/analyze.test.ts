@@ -201,3 +201,28 @@ describe("text output", () => {
     expect(run.stdout).toMatch(/Cp\s+1\.703229\s+1\.\d+ to 1\.\d+/);
   });
 });
+
+describe("patterns and change points", () => {
+  // level-shift.csv is an invented series whose level steps up by about 0.3 after its 13th value.
+  test("a step in level is read as a shift, dated by the step change-point estimator", async () => {
+    const report = await analyzeJson("level-shift.csv", "--chart", "imr");
+    const shift = report.patterns.find((pattern) => pattern.kind === "shift");
+    expect(shift?.chart).toBe("x");
+    expect(shift?.changePoint).toMatchObject({ model: "step", index: 12 });
+    expect(shift?.causes.map((cause) => cause.category)).toContain("material");
+    expect(report.changePoints).toContainEqual(expect.objectContaining({ chart: "x", kind: "shift", index: 12 }));
+  });
+
+  test("no signal, no pattern", async () => {
+    const report = await analyzeJson("piston-rings.csv", "--chart", "xbar-r");
+    expect(report.signals).toEqual([]);
+    expect(report.patterns).toEqual([]);
+    expect(report.changePoints).toEqual([]);
+  });
+
+  test("the text output names the pattern and the causes to check first", async () => {
+    const run = await runInProcess(["analyze", `${FIXTURES}/level-shift.csv`, "--chart", "imr"]);
+    expect(run.stdout).toContain("x: Shift in level — subgroups 15–19: changed after subgroup 12 (window 10–14, 95%)");
+    expect(run.stdout).toContain("check material:");
+  });
+});
