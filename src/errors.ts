@@ -11,6 +11,8 @@ export type TAppErrorCode = (typeof APP_ERROR_CODES)[number];
 
 /** One problem with the input: a dotted field path ("subgroups.3.values") and what is wrong. */
 export interface TIssue {
+  /** Position of the offending item in a list input (e.g. the subgroup), when there is one. */
+  readonly index?: number;
   readonly path: string;
   readonly message: string;
 }

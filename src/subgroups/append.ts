@@ -1,0 +1,349 @@
+/**
+ * Appending subgroups to a characteristic (API, manual entry, CSV import), with live detection.
+ *
+ * 1. Every subgroup is checked with the characteristic's schema (`subgroupSchemaFor`); one invalid
+ *    subgroup rejects the whole call, naming each bad subgroup and field. Timestamps must not go back in
+ *    time (equal is allowed). Rows with a source key already stored are skipped (a re-import adds nothing).
+ * 2. Sequences continue after the last stored one; subgroups, measurements, tags and the cached summaries
+ *    are written in one transaction together with the signals they raise.
+ * 3. Live detection: each new point is evaluated against the limit set in force with the rules'
+ *    incremental form (`firingsAt`), over the cached summaries of at most RULE_TAIL_LENGTH + 1 earlier
+ *    points of the segment and, for EWMA and CUSUM, the previous point's cached statistic, so the cost
+ *    does not depend on the length of the history. Firings merge into the signals still open
+ *    (`mergeFirings`): a firing that continues one extends it instead of creating another. With no limit
+ *    set yet, subgroups are stored and nothing is raised (`limits: null` says so).
+ * Live signals carry no pattern: reading one needs the whole episode; re-evaluation adds it.
+ */
+import type { RuleId } from "@/shared/constants";
+import { subgroupSchemaFor, type TSubgroupInput } from "@/shared/intake";
+import { chartTypeOf } from "@/src/characteristics/setup";
+import type { PrismaClient } from "@/src/db/connect";
+import type { Prisma } from "@/src/db/generated/client";
+import { AppError, type TIssue } from "@/src/errors";
+import { chartParametersOf } from "@/src/limits/parameters";
+import { limitSegments, type TSegment } from "@/src/limits/segments";
+import { summarySeries, type TSummary } from "@/src/limits/series";
+import { SIGNAL_VIEW, toSignalView, type TSignalView } from "@/src/signals/rows";
+import { firingsAt, mergeFirings, resolveRuleSet, RULE_TAIL_LENGTH, type Firing } from "@/src/spc/rules";
+import type { Signal, StatisticSeries } from "@/src/spc/types";
+import { summarize } from "./summaries";
+
+export interface TAppendOptions {
+  readonly source: "api" | "entry" | "import";
+  readonly now: Date;
+  readonly importBatchId?: number;
+  /** One key per input (e.g. the file row's key); inputs whose key is already stored are skipped. */
+  readonly sourceKeys?: readonly string[];
+}
+
+export interface TStoredSubgroup {
+  readonly id: number;
+  readonly sequence: number;
+  readonly timestamp: Date;
+  readonly values: number[] | null;
+  readonly count: number | null;
+  readonly size: number | null;
+  readonly tags: Record<string, string>;
+  readonly mean: number | null;
+  readonly spread: number | null;
+  /** Rules that fired at this point (empty: in control as far as the rules can tell). */
+  readonly firedRules: RuleId[];
+}
+
+export interface TAppendResult {
+  readonly stored: TStoredSubgroup[];
+  /** Signals created or extended by these subgroups. */
+  readonly signals: TSignalView[];
+  /** Inputs skipped because their source key was already stored. */
+  readonly alreadyPresent: number;
+  /** The limit version the new points were judged against, or null with the reason. */
+  readonly limits: { readonly limitSetId: number; readonly version: number } | null;
+  readonly notes: string[];
+}
+
+/** The subgroup's issues, or the parsed subgroup. */
+function check(schema: ReturnType<typeof subgroupSchemaFor>, input: unknown, index: number, issues: TIssue[]): TSubgroupInput | undefined {
+  const parsed = schema.safeParse(input);
+  if (parsed.success) return parsed.data;
+  for (const issue of parsed.error.issues) {
+    issues.push({ index, path: ["subgroups", index, ...issue.path].map(String).join("."), message: issue.message });
+  }
+  return undefined;
+}
+
+function rejectAll(message: string, issues: TIssue[]): never {
+  throw new AppError("invalid-input", message, issues);
+}
+
+function validate(
+  chart: ReturnType<typeof chartTypeOf>,
+  subgroupSize: number,
+  inputs: readonly unknown[],
+  sourceKeys: readonly string[] | undefined,
+): TSubgroupInput[] {
+  if (inputs.length === 0) rejectAll("No subgroups were given", [{ path: "subgroups", message: "must hold at least one subgroup" }]);
+  if (sourceKeys !== undefined && sourceKeys.length !== inputs.length) {
+    throw new Error(`appendSubgroups: ${sourceKeys.length} source keys for ${inputs.length} subgroups`);
+  }
+  const schema = subgroupSchemaFor(chart, subgroupSize);
+  const issues: TIssue[] = [];
+  const parsed = inputs.map((input, index) => check(schema, input, index, issues));
+  const firstOf = new Map<string, number>();
+  sourceKeys?.forEach((key, index) => {
+    const first = firstOf.get(key);
+    if (first === undefined) firstOf.set(key, index);
+    else issues.push({ index, path: `subgroups.${index}`, message: `repeats the key "${key}" of subgroup ${first}` });
+  });
+  if (issues.length > 0) {
+    const count = new Set(issues.map((issue) => issue.index)).size;
+    rejectAll(`${count} of ${inputs.length} subgroups are not valid; nothing was stored`, issues);
+  }
+  return parsed as TSubgroupInput[];
+}
+
+/** Refuses timestamps earlier than the one before them (the last stored subgroup, then each other). */
+function checkTimeOrder(inputs: readonly TSubgroupInput[], last: { sequence: number; timestamp: Date } | null): void {
+  let previous = last === null ? null : { time: last.timestamp.getTime(), what: `the last stored subgroup (sequence ${last.sequence})` };
+  const issues: TIssue[] = [];
+  inputs.forEach((input, index) => {
+    const time = new Date(input.timestamp).getTime();
+    if (previous !== null && time < previous.time) {
+      issues.push({
+        index,
+        path: `subgroups.${index}.timestamp`,
+        message: `${input.timestamp} is earlier than ${previous.what} at ${new Date(previous.time).toISOString()}; subgroups must arrive in time order`,
+      });
+    }
+    previous = { time, what: `subgroup ${index}` };
+  });
+  if (issues.length > 0) rejectAll(`Timestamps go backwards; nothing was stored`, issues);
+}
+
+const SUMMARY_SELECT = { sequence: true, mean: true, spread: true, count: true, size: true, ewma: true, cusumUpper: true, cusumLower: true } as const;
+
+/** A view of positions from .. to (exclusive) of a series, without copying. */
+function slice(series: StatisticSeries, from: number, to: number): StatisticSeries {
+  return {
+    ...series,
+    points: series.points.subarray(from, to),
+    ucl: series.ucl.subarray(from, to),
+    lcl: series.lcl.subarray(from, to),
+    sigma: series.sigma.subarray(from, to),
+  };
+}
+
+interface TDetection {
+  readonly statistics: StatisticSeries[];
+  /** Position of the first new point in `statistics`. */
+  readonly firstNew: number;
+  /** Segment index of position 0 of `statistics`. */
+  readonly firstIndex: number;
+  readonly firings: Firing[];
+}
+
+/** Evaluates the new points (summaries `fresh`, sequences from `firstSequence`) in their segment. */
+async function detect(
+  transaction: Prisma.TransactionClient,
+  characteristicId: number,
+  chart: ReturnType<typeof chartTypeOf>,
+  segment: TSegment<{ id: number; version: number; appliesFrom: number } & Parameters<typeof chartParametersOf>[1]>,
+  rules: readonly RuleId[],
+  fresh: readonly TSummary[],
+  firstSequence: number,
+): Promise<TDetection> {
+  // The tail: up to RULE_TAIL_LENGTH points before the new ones, plus one more for its state.
+  const earlier = (
+    await transaction.subgroup.findMany({
+      where: { characteristicId, sequence: { gte: Math.max(segment.from, firstSequence - RULE_TAIL_LENGTH - 1), lt: firstSequence } },
+      orderBy: { sequence: "desc" },
+      select: SUMMARY_SELECT,
+    })
+  ).reverse();
+  const hasPrevious = earlier.length > 0 && earlier[0]!.sequence > segment.from;
+  const tail = hasPrevious ? earlier.slice(1) : earlier;
+  const firstIndex = (tail[0]?.sequence ?? firstSequence) - segment.from;
+  const statistics = summarySeries(chart, chartParametersOf(chart, segment.limitSet), [...tail, ...fresh], {
+    firstIndex,
+    previous: hasPrevious ? earlier[0] : undefined,
+  });
+  const firings: Firing[] = [];
+  for (let position = tail.length; position < tail.length + fresh.length; position++) {
+    const from = Math.max(0, position - RULE_TAIL_LENGTH);
+    for (const series of statistics) {
+      firings.push(...firingsAt(slice(series, from, position + 1), firstIndex + from, rules));
+    }
+  }
+  return { statistics, firstNew: tail.length, firstIndex, firings };
+}
+
+export async function appendSubgroups(
+  db: PrismaClient,
+  characteristicId: number,
+  inputs: readonly unknown[],
+  options: TAppendOptions,
+): Promise<TAppendResult> {
+  const characteristic = await db.characteristic.findUnique({
+    where: { id: characteristicId },
+    select: { chartType: true, subgroupSize: true, ruleSet: true },
+  });
+  if (characteristic === null) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
+  const chart = chartTypeOf(characteristic.chartType);
+  const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
+  const rules = resolveRuleSet(characteristic.ruleSet);
+
+  return db.$transaction(async (transaction) => {
+    const known = options.sourceKeys === undefined
+      ? new Set<string>()
+      : new Set(
+          (
+            await transaction.subgroup.findMany({
+              where: { characteristicId, sourceKey: { in: [...options.sourceKeys] } },
+              select: { sourceKey: true },
+            })
+          ).map((row) => row.sourceKey),
+        );
+    const chosen = parsed
+      .map((input, index) => ({ input, key: options.sourceKeys?.[index] }))
+      .filter(({ key }) => key === undefined || !known.has(key));
+    const alreadyPresent = parsed.length - chosen.length;
+    const last = await transaction.subgroup.findFirst({
+      where: { characteristicId },
+      orderBy: { sequence: "desc" },
+      select: { sequence: true, timestamp: true },
+    });
+    checkTimeOrder(chosen.map(({ input }) => input), last);
+    const firstSequence = (last?.sequence ?? -1) + 1;
+    const summaries = chosen.map(({ input }) => ({ ...summarize(chart, input), ewma: null, cusumUpper: null, cusumLower: null }));
+
+    const limitSets = await transaction.limitSet.findMany({ where: { characteristicId } });
+    const segment = limitSegments(limitSets).find((candidate) => candidate.from <= firstSequence && candidate.to === Infinity);
+    const notes: string[] = [];
+    let detection: TDetection | undefined;
+    if (chosen.length === 0) notes.push("every subgroup was already stored; nothing was added");
+    else if (segment === undefined) notes.push("no limits yet: the subgroups are stored and no rule was evaluated");
+    else detection = await detect(transaction, characteristicId, chart, segment, rules, summaries, firstSequence);
+
+    const state = (key: string, position: number) =>
+      detection?.statistics.find((series) => series.key === key)?.points[detection.firstNew + position] ?? null;
+    const created = await transaction.subgroup.createManyAndReturn({
+      data: chosen.map(({ input, key }, position) => ({
+        characteristicId,
+        sequence: firstSequence + position,
+        timestamp: new Date(input.timestamp),
+        sourceKey: key ?? null,
+        importBatchId: options.importBatchId ?? null,
+        ...summaries[position]!,
+        ewma: state("ewma", position),
+        cusumUpper: state("cusum-upper", position),
+        cusumLower: state("cusum-lower", position),
+        createdAt: options.now,
+      })),
+      select: { id: true, sequence: true },
+    });
+    const idOf = new Map(created.map((row) => [row.sequence, row.id]));
+    const measurements = chosen.flatMap(({ input }, position) =>
+      (input.values ?? []).map((value, order) => ({ subgroupId: idOf.get(firstSequence + position)!, position: order, value })),
+    );
+    const tags = chosen.flatMap(({ input }, position) =>
+      Object.entries(input.tags ?? {}).map(([key, value]) => ({ subgroupId: idOf.get(firstSequence + position)!, key, value })),
+    );
+    if (measurements.length > 0) await transaction.measurement.createMany({ data: measurements });
+    if (tags.length > 0) await transaction.subgroupTag.createMany({ data: tags });
+
+    const signals =
+      detection === undefined || segment === undefined
+        ? []
+        : await storeFirings(transaction, characteristicId, segment.limitSet.id, segment.from, detection.firings, options.now);
+    const firedAt = new Map<number, RuleId[]>();
+    for (const firing of detection?.firings ?? []) {
+      const sequence = segment!.from + firing.index;
+      const rulesHere = firedAt.get(sequence) ?? [];
+      if (!rulesHere.includes(firing.rule)) rulesHere.push(firing.rule);
+      firedAt.set(sequence, rulesHere);
+    }
+    const stored = chosen.map(({ input }, position): TStoredSubgroup => {
+      const sequence = firstSequence + position;
+      return {
+        id: idOf.get(sequence)!,
+        sequence,
+        timestamp: new Date(input.timestamp),
+        values: input.values ?? null,
+        count: summaries[position]!.count,
+        size: summaries[position]!.size,
+        tags: input.tags ?? {},
+        mean: summaries[position]!.mean,
+        spread: summaries[position]!.spread,
+        firedRules: firedAt.get(sequence) ?? [],
+      };
+    });
+    return {
+      stored,
+      signals,
+      alreadyPresent,
+      limits: segment === undefined ? null : { limitSetId: segment.limitSet.id, version: segment.limitSet.version },
+      notes,
+    };
+  });
+}
+
+/**
+ * Merges firings (segment indices) into the signals of the limit set that could still continue, then
+ * writes the extended and the new ones. A signal can continue only if its end touches a firing's
+ * window, so only those are read.
+ */
+async function storeFirings(
+  transaction: Prisma.TransactionClient,
+  characteristicId: number,
+  limitSetId: number,
+  segmentFrom: number,
+  firings: readonly Firing[],
+  now: Date,
+): Promise<TSignalView[]> {
+  if (firings.length === 0) return [];
+  const earliest = segmentFrom + Math.min(...firings.map((firing) => firing.windowStart)) - 1;
+  const openRows = await transaction.signal.findMany({
+    where: { characteristicId, limitSetId, endSequence: { gte: earliest } },
+    select: { id: true, rule: true, statistic: true, startSequence: true, endSequence: true, firing: true, side: true },
+  });
+  const toIndex = (sequence: number) => sequence - segmentFrom;
+  const open: Signal[] = openRows.map((row) => ({
+    rule: row.rule as RuleId,
+    chart: row.statistic as Signal["chart"],
+    start: toIndex(row.startSequence),
+    end: toIndex(row.endSequence),
+    firing: (JSON.parse(row.firing) as number[]).map(toIndex),
+    ...(row.side === "above" || row.side === "below" ? { side: row.side } : {}),
+  }));
+  const touched: number[] = [];
+  for (const signal of mergeFirings(firings, open)) {
+    const firing = JSON.stringify(signal.firing.map((index) => index + segmentFrom));
+    const existing = openRows.find(
+      (row) => row.rule === signal.rule && row.statistic === signal.chart && row.startSequence === signal.start + segmentFrom,
+    );
+    if (existing !== undefined) {
+      if (existing.firing === firing) continue;
+      await transaction.signal.update({ where: { id: existing.id }, data: { endSequence: signal.end + segmentFrom, firing, updatedAt: now } });
+      touched.push(existing.id);
+    } else {
+      const row = await transaction.signal.create({
+        data: {
+          characteristicId,
+          limitSetId,
+          rule: signal.rule,
+          statistic: signal.chart,
+          startSequence: signal.start + segmentFrom,
+          endSequence: signal.end + segmentFrom,
+          firing,
+          side: signal.side ?? null,
+          pattern: null,
+          detectedAt: now,
+          updatedAt: now,
+        },
+        select: { id: true },
+      });
+      touched.push(row.id);
+    }
+  }
+  const rows = await transaction.signal.findMany({ where: { id: { in: touched } }, orderBy: [{ startSequence: "asc" }, { id: "asc" }], select: SIGNAL_VIEW });
+  return rows.map(toSignalView);
+}
