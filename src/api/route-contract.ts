@@ -1,0 +1,26 @@
+/**
+ * The shape of one API route, declared once: its method and path, and the zod schemas of its path
+ * parameters, query, body and answer. The route handler validates with these schemas and the OpenAPI
+ * document is generated from the same objects, so the two cannot drift apart.
+ */
+import type { z } from "zod";
+
+export interface TApiRoute {
+  readonly method: "get" | "post";
+  /** OpenAPI path under /api/v1, parameters in braces: "/characteristics/{id}/subgroups". */
+  readonly path: string;
+  readonly summary: string;
+  readonly description?: string;
+  readonly tag: "Characteristics" | "Processes" | "Document";
+  readonly params?: z.ZodObject;
+  readonly query?: z.ZodObject;
+  readonly body?: z.ZodType;
+  readonly answer: { readonly status: 200 | 201; readonly description: string; readonly schema: z.ZodType };
+  /** Error statuses this route can answer with, besides 403 (not local) and 500 (a bug). */
+  readonly errors: readonly number[];
+}
+
+/** Declares a route, keeping the literal types of its schemas for the handler. */
+export function defineApiRoute<const TRoute extends TApiRoute>(route: TRoute): TRoute {
+  return route;
+}

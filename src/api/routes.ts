@@ -1,0 +1,116 @@
+/**
+ * Every route of the HTTP API (version 1), declared once. The handlers under app/api/v1 take their
+ * schemas from here and the OpenAPI document lists exactly these.
+ */
+import { z } from "zod";
+import {
+  ZCharacteristicList,
+  ZCharacteristicView,
+  ZEventList,
+  ZEventView,
+  ZIdParams,
+  ZSequenceRangeQuery,
+  ZSignalList,
+  ZSubgroupsPostAnswer,
+  ZTimeRangeQuery,
+} from "@/shared/api";
+import { INTAKE_LIMITS, ZEventInput, ZSubgroupsPost } from "@/shared/intake";
+import { defineApiRoute, type TApiRoute } from "./route-contract";
+
+/** Statuses of a route that reads a JSON body: not JSON, too large, wrong media type, invalid. */
+const BODY_ERRORS = [400, 413, 415, 422];
+
+export const listCharacteristicsRoute = defineApiRoute({
+  method: "get",
+  path: "/characteristics",
+  tag: "Characteristics",
+  summary: "List every characteristic with its chart settings and the limits in force",
+  answer: { status: 200, description: "Every characteristic, ordered by process and name.", schema: ZCharacteristicList },
+  errors: [],
+});
+
+export const getCharacteristicRoute = defineApiRoute({
+  method: "get",
+  path: "/characteristics/{id}",
+  tag: "Characteristics",
+  summary: "One characteristic with its chart settings and the limits in force",
+  params: ZIdParams,
+  answer: { status: 200, description: "The characteristic.", schema: ZCharacteristicView },
+  errors: [404, 422],
+});
+
+export const postSubgroupsRoute = defineApiRoute({
+  method: "post",
+  path: "/characteristics/{id}/subgroups",
+  tag: "Characteristics",
+  summary: "Store subgroups and evaluate them at once against the limits in force",
+  description:
+    `All or nothing: if any subgroup is invalid nothing is stored and every problem is named by its path ` +
+    `(e.g. "subgroups.3.values.2"). Which fields a subgroup needs depends on the chart: values (exactly the ` +
+    `subgroup size) for variables charts; count and size for p and np; count for c; count and units for u. ` +
+    `At most ${INTAKE_LIMITS.subgroupsPerRequest} subgroups per request; timestamps must not go backwards.`,
+  params: ZIdParams,
+  body: ZSubgroupsPost.meta({ id: "SubgroupsPost" }),
+  answer: {
+    status: 201,
+    description: "The stored subgroups with their sequences, and the signals they raised or extended.",
+    schema: ZSubgroupsPostAnswer,
+  },
+  errors: [...BODY_ERRORS, 404],
+});
+
+export const listSignalsRoute = defineApiRoute({
+  method: "get",
+  path: "/characteristics/{id}/signals",
+  tag: "Characteristics",
+  summary: "Stored signals of a characteristic, optionally those touching a range of sequences",
+  params: ZIdParams,
+  query: ZSequenceRangeQuery,
+  answer: { status: 200, description: "The signals, in order of their first point.", schema: ZSignalList },
+  errors: [404, 422],
+});
+
+export const postEventRoute = defineApiRoute({
+  method: "post",
+  path: "/processes/{id}/events",
+  tag: "Processes",
+  summary: "Record a process event (lot change, maintenance, setting change, ...)",
+  params: ZIdParams,
+  body: ZEventInput.meta({ id: "ProcessEventInput" }),
+  answer: { status: 201, description: "The recorded event.", schema: ZEventView },
+  errors: [...BODY_ERRORS, 404],
+});
+
+export const listEventsRoute = defineApiRoute({
+  method: "get",
+  path: "/processes/{id}/events",
+  tag: "Processes",
+  summary: "Events of a process, optionally within a time range",
+  params: ZIdParams,
+  query: ZTimeRangeQuery,
+  answer: { status: 200, description: "The events, oldest first.", schema: ZEventList },
+  errors: [404, 422],
+});
+
+export const openApiRoute = defineApiRoute({
+  method: "get",
+  path: "/openapi.json",
+  tag: "Document",
+  summary: "This API described as an OpenAPI 3.1 document",
+  answer: {
+    status: 200,
+    description: "The OpenAPI document.",
+    schema: z.looseObject({ openapi: z.string() }).meta({ id: "OpenApiDocument", description: "An OpenAPI 3.1 document." }),
+  },
+  errors: [],
+});
+
+export const API_ROUTES: readonly TApiRoute[] = [
+  listCharacteristicsRoute,
+  getCharacteristicRoute,
+  postSubgroupsRoute,
+  listSignalsRoute,
+  postEventRoute,
+  listEventsRoute,
+  openApiRoute,
+];
