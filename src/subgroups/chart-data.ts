@@ -13,7 +13,7 @@ export interface TStoredRange {
   readonly sequences: readonly number[];
 }
 
-/** Subgroups with sequence in [from, to), in order; undefined when there are none. */
+/** Subgroups with sequence in [from, to) (`to` may be Infinity), in order; undefined when there are none. */
 export async function readChartData(
   db: Prisma.TransactionClient,
   characteristicId: number,
@@ -21,7 +21,7 @@ export async function readChartData(
   from: number,
   to: number,
 ): Promise<TStoredRange | undefined> {
-  const where = { characteristicId, sequence: { gte: from, lt: to } };
+  const where = { characteristicId, sequence: Number.isFinite(to) ? { gte: from, lt: to } : { gte: from } };
   if (VARIABLES_CHART_TYPES.includes(chart)) {
     const rows = await db.subgroup.findMany({
       where,
