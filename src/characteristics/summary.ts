@@ -9,6 +9,7 @@
  * defects per unit for c and u; for c the size is 1, so the value is the count itself).
  */
 import { CHART_TYPES, CHART_TYPE_LABELS, VARIABLES_CHART_TYPES, type ChartType } from "../../shared/constants";
+import { subgroupMeans, variablesData } from "../spc/data";
 
 /** How many recent subgroups the overview reads and plots per characteristic. */
 export const OVERVIEW_POINT_COUNT = 50;
@@ -86,9 +87,8 @@ export function plottedValue(subgroup: StoredSubgroup, chartType: ChartType): nu
     return subgroup.count / subgroup.size;
   }
   if (subgroup.measurements.length === 0) return null;
-  let sum = 0;
-  for (const measurement of subgroup.measurements) sum += measurement.value;
-  return sum / subgroup.measurements.length;
+  // The engine's own mean, so the overview shows exactly what the chart plots.
+  return subgroupMeans(variablesData([subgroup.measurements.map((measurement) => measurement.value)]))[0] ?? null;
 }
 
 function statisticNameOf(chartType: ChartType, subgroupSize: number): string {
