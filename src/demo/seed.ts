@@ -8,6 +8,7 @@
  * `SeedSummary`, which scripts/db-seed.ts and the app's start-up print once.
  */
 import type { Prisma, PrismaClient } from "@/src/db/generated/client";
+import { seedDemoLimits } from "./limits";
 import { DEFAULT_DEMO_SEED, generateDemoScenario } from "./scenario";
 import type { DemoCharacteristic, DemoScenario, PlantedEpisode } from "./types";
 
@@ -35,6 +36,9 @@ export interface SeedSummary {
   readonly measurements: number;
   readonly tags: number;
   readonly events: number;
+  /** Limit sets frozen (v1 per characteristic, ./limits.ts) and signals stored for the history. */
+  readonly limitSets: number;
+  readonly signals: number;
   /** Sites deleted first (only with `replace`). */
   readonly deletedSites: number;
   readonly plantedEpisodes: readonly PlantedEpisode[];
@@ -58,7 +62,7 @@ async function writeCharacteristic(
   transaction: Prisma.TransactionClient,
   processId: number,
   characteristic: DemoCharacteristic,
-): Promise<{ subgroups: number; measurements: number; tags: number }> {
+): Promise<{ characteristicId: number; subgroups: number; measurements: number; tags: number }> {
   const { id: characteristicId } = await transaction.characteristic.create({
     data: {
       processId,
@@ -102,7 +106,7 @@ async function writeCharacteristic(
   );
   for (const chunk of chunks(measurements)) await transaction.measurement.createMany({ data: chunk });
   for (const chunk of chunks(tags)) await transaction.subgroupTag.createMany({ data: chunk });
-  return { subgroups: characteristic.subgroups.length, measurements: measurements.length, tags: tags.length };
+  return { characteristicId, subgroups: characteristic.subgroups.length, measurements: measurements.length, tags: tags.length };
 }
 
 async function writeScenario(transaction: Prisma.TransactionClient, scenario: DemoScenario) {
@@ -126,8 +130,10 @@ async function writeScenario(transaction: Prisma.TransactionClient, scenario: De
     return id;
   };
   const totals = { subgroups: 0, measurements: 0, tags: 0 };
+  const characteristicIds: number[] = [];
   for (const characteristic of scenario.characteristics) {
     const written = await writeCharacteristic(transaction, processId(characteristic.processKey), characteristic);
+    characteristicIds.push(written.characteristicId);
     totals.subgroups += written.subgroups;
     totals.measurements += written.measurements;
     totals.tags += written.tags;
@@ -142,7 +148,7 @@ async function writeScenario(transaction: Prisma.TransactionClient, scenario: De
     unit: event.unit,
   }));
   for (const chunk of chunks(events)) await transaction.processEvent.createMany({ data: chunk });
-  return { ...totals, events: events.length };
+  return { ...totals, characteristicIds, events: events.length };
 }
 
 /**
@@ -154,13 +160,16 @@ async function writeScenario(transaction: Prisma.TransactionClient, scenario: De
 export async function seedDemoPlant(prisma: PrismaClient, options: SeedOptions = {}): Promise<SeedSummary> {
   const started = performance.now();
   const scenario = generateDemoScenario({ seed: options.seed ?? DEFAULT_DEMO_SEED, end: options.end ?? new Date() });
-  const written = await prisma.$transaction(
+  const { characteristicIds, ...written } = await prisma.$transaction(
     async (transaction) => {
       const deletedSites = options.replace === true ? (await transaction.site.deleteMany()).count : 0;
       return { deletedSites, ...(await writeScenario(transaction, scenario)) };
     },
     { timeout: TRANSACTION_TIMEOUT_MS, maxWait: TRANSACTION_TIMEOUT_MS },
   );
+  // Limits and signals go through the intake services, each revision in its own transaction: nested
+  // interactive transactions do not exist. A failure here leaves the plant without limits, never half a plant.
+  const judged = await seedDemoLimits(prisma, characteristicIds, scenario.end);
   return {
     seed: scenario.seed,
     siteName: scenario.siteName,
@@ -169,6 +178,7 @@ export async function seedDemoPlant(prisma: PrismaClient, options: SeedOptions =
     processes: scenario.processes.length,
     characteristics: scenario.characteristics.length,
     ...written,
+    ...judged,
     plantedEpisodes: scenario.plantedEpisodes,
     milliseconds: Math.round(performance.now() - started),
   };

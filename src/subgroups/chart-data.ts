@@ -23,16 +23,26 @@ export async function readChartData(
 ): Promise<TStoredRange | undefined> {
   const where = { characteristicId, sequence: Number.isFinite(to) ? { gte: from, lt: to } : { gte: from } };
   if (VARIABLES_CHART_TYPES.includes(chart)) {
-    const rows = await db.subgroup.findMany({
-      where,
-      orderBy: { sequence: "asc" },
-      select: { sequence: true, measurements: { orderBy: { position: "asc" }, select: { value: true } } },
-    });
+    // One joined query: Prisma's relation loading binds every subgroup id and exceeds SQLite's parameter limit.
+    const rows = await db.$queryRawUnsafe<{ sequence: number | bigint; value: number }[]>(
+      `SELECT s."sequence" AS "sequence", m."value" AS "value" FROM "Subgroup" s JOIN "Measurement" m ON m."subgroupId" = s."id" ` +
+        `WHERE s."characteristicId" = ? AND s."sequence" >= ? AND s."sequence" < ? ORDER BY s."sequence", m."position"`,
+      characteristicId,
+      from,
+      Number.isFinite(to) ? to : Number.MAX_SAFE_INTEGER,
+    );
     if (rows.length === 0) return undefined;
-    return {
-      data: variablesData(rows.map((row) => row.measurements.map((measurement) => measurement.value))),
-      sequences: rows.map((row) => row.sequence),
-    };
+    const sequences: number[] = [];
+    const subgroups: number[][] = [];
+    for (const row of rows) {
+      const sequence = Number(row.sequence);
+      if (sequences.at(-1) !== sequence) {
+        sequences.push(sequence);
+        subgroups.push([]);
+      }
+      subgroups.at(-1)!.push(row.value);
+    }
+    return { data: variablesData(subgroups), sequences };
   }
   const rows = await db.subgroup.findMany({ where, orderBy: { sequence: "asc" }, select: { sequence: true, count: true, size: true } });
   if (rows.length === 0) return undefined;
