@@ -25,7 +25,8 @@ export class ApiProblem extends Error {
 }
 
 function answer(status: number, code: TApiErrorCode, message: string, issues: readonly TIssue[] = []): Response {
-  const body: TApiError = { error: { code, message, issues: [...issues] } };
+  // Only path and message leave the server: services may add fields for their own callers (e.g. an index).
+  const body: TApiError = { error: { code, message, issues: issues.map(({ path, message: text }) => ({ path, message: text })) } };
   return Response.json(body, { status });
 }
 
