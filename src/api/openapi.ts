@@ -11,6 +11,8 @@ import { API_ROUTES } from "./routes";
 /** Base path of version 1; route paths in routes.ts are relative to it. */
 export const API_BASE_PATH = "/api/v1";
 
+const JSON_MEDIA_TYPE = "application/json";
+
 const ERROR_DESCRIPTIONS: Record<number, string> = {
   400: "The body is not JSON.",
   403: "The caller is not on this machine (the API works on loopback only until API tokens exist).",
@@ -35,17 +37,17 @@ function buildDocument() {
       request: {
         ...(route.params ? { params: route.params } : {}),
         ...(route.query ? { query: route.query } : {}),
-        ...(route.body ? { body: { required: true, content: { "application/json": { schema: route.body } } } } : {}),
+        ...(route.body ? { body: { required: true, content: { [route.bodyMediaType ?? JSON_MEDIA_TYPE]: { schema: route.body } } } } : {}),
       },
       responses: {
         [route.answer.status]: {
           description: route.answer.description,
-          content: { "application/json": { schema: route.answer.schema } },
+          content: { [route.answer.mediaType ?? JSON_MEDIA_TYPE]: { schema: route.answer.schema } },
         },
         ...Object.fromEntries(
           errorStatuses.map((status) => [
             status,
-            { description: ERROR_DESCRIPTIONS[status] ?? "Error.", content: { "application/json": { schema: ZApiError } } },
+            { description: ERROR_DESCRIPTIONS[status] ?? "Error.", content: { [JSON_MEDIA_TYPE]: { schema: ZApiError } } },
           ]),
         ),
       },

@@ -15,7 +15,15 @@ export interface TApiRoute {
   readonly params?: z.ZodObject;
   readonly query?: z.ZodObject;
   readonly body?: z.ZodType;
-  readonly answer: { readonly status: 200 | 201; readonly description: string; readonly schema: z.ZodType };
+  /** Media type of the body when it is not JSON (e.g. "text/csv"; its schema is then z.string()). */
+  readonly bodyMediaType?: string;
+  readonly answer: {
+    readonly status: 200 | 201;
+    readonly description: string;
+    readonly schema: z.ZodType;
+    /** Media type of the answer when it is not JSON (e.g. "application/x-ndjson", "text/csv"). */
+    readonly mediaType?: string;
+  };
   /** Error statuses this route can answer with, besides 403 (not local) and 500 (a bug). */
   readonly errors: readonly number[];
 }
