@@ -1,0 +1,124 @@
+/**
+ * Speed and memory of the CSV import on 1,000,000 rows (issue 5): a seeded individuals series
+ * (timestamp,value; one subgroup per row) is written to a temporary file, then
+ * 1. the real import path (`importCsv`: file stream → papaparse → zod row checks → subgroup checks with the
+ *    shared schema → source keys → prepared-statement writes in one transaction → batch re-evaluation)
+ *    runs into a fresh, migrated database, with the resident set size sampled every 20 ms;
+ * 2. a bare better-sqlite3 insert of the same rows (the Subgroup and Measurement rows the import stored,
+ *    read back from the first database beforehand) runs into a second fresh database, with the same
+ *    prepared statements in one transaction and nothing else.
+ * Both throughputs are printed with their ratio. Targets: ratio ≥ 0.5 and peak RSS < 500 MB during the
+ * import; exits 1 if either fails. One run each (a million rows take seconds, so timer noise is small).
+ *
+ * Run: npx tsx bench/import-1m.ts
+ */
+import { createWriteStream, mkdtempSync, rmSync, statSync, createReadStream } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { once } from "node:events";
+import { createPrismaClient } from "../src/db/connect";
+import { applyMigrations } from "../src/db/migrations/apply-migrations";
+import { importCsv } from "../src/imports/import-csv";
+import { openImportDatabase } from "../src/imports/write";
+import { createRng } from "../src/spc/random";
+
+const ROWS = 1_000_000;
+const MINIMUM_RATIO = 0.5;
+const MAXIMUM_RSS_BYTES = 500 * 1024 * 1024;
+const START = Date.UTC(2026, 0, 1);
+
+const directory = mkdtempSync(path.join(os.tmpdir(), "assignable-import-bench-"));
+
+async function writeCsv(file: string): Promise<void> {
+  const rng = createRng(20261202);
+  const out = createWriteStream(file);
+  out.write("timestamp,value\n");
+  let buffer = "";
+  for (let row = 0; row < ROWS; row += 1) {
+    buffer += `${new Date(START + row * 60_000).toISOString()},${(18.2 + 0.06 * rng.normal()).toFixed(3)}\n`;
+    if (buffer.length > 1 << 16) {
+      if (!out.write(buffer)) await once(out, "drain");
+      buffer = "";
+    }
+  }
+  out.end(buffer);
+  await once(out, "finish");
+}
+
+async function freshDatabase(name: string) {
+  const databaseFile = path.join(directory, name);
+  await applyMigrations({ databaseFile });
+  const prisma = createPrismaClient(`file:${databaseFile}`);
+  const site = await prisma.site.create({ data: { name: "Bench site" } });
+  const area = await prisma.area.create({ data: { siteId: site.id, name: "Hall" } });
+  const process = await prisma.process.create({ data: { areaId: area.id, name: "Press", kind: "injection-moulding press" } });
+  const characteristic = await prisma.characteristic.create({
+    data: { processId: process.id, name: "Cap height", unit: "mm", chartType: "imr", subgroupSize: 1, ruleSet: "nelson" },
+  });
+  return { databaseFile, prisma, characteristicId: characteristic.id };
+}
+
+try {
+  const csvFile = path.join(directory, "readings.csv");
+  await writeCsv(csvFile);
+  const fileBytes = statSync(csvFile).size;
+
+  // 1. The real import path.
+  const real = await freshDatabase("real.db");
+  const realSqlite = openImportDatabase(real.databaseFile);
+  let peakRss = process.memoryUsage().rss;
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage().rss)), 20);
+  const importStarted = performance.now();
+  const result = await importCsv(real.prisma, realSqlite, {
+    characteristicId: real.characteristicId,
+    source: createReadStream(csvFile),
+    options: { fileName: "readings.csv", mapping: { timestamp: "timestamp", value: "value" } },
+    now: new Date(),
+  });
+  const importMilliseconds = performance.now() - importStarted;
+  clearInterval(sampler);
+  peakRss = Math.max(peakRss, process.memoryUsage().rss);
+  if (result.status !== "imported" || result.subgroupsAdded !== ROWS) throw new Error(`import did not add every row: ${JSON.stringify({ ...result, problems: result.problems.slice(0, 5) })}`);
+
+  // 2. The bare insert of the same rows.
+  const subgroups = realSqlite
+    .prepare<[], [number, string, string, number, string]>('SELECT "sequence", "timestamp", "sourceKey", "mean", "createdAt" FROM "Subgroup" ORDER BY "sequence"')
+    .raw()
+    .all();
+  const values = realSqlite.prepare<[], number>('SELECT "value" FROM "Measurement" ORDER BY "subgroupId"').pluck().all();
+  realSqlite.close();
+  await real.prisma.$disconnect();
+
+  const bare = await freshDatabase("bare.db");
+  await bare.prisma.$disconnect();
+  const bareSqlite = openImportDatabase(bare.databaseFile);
+  const insertSubgroup = bareSqlite.prepare(
+    'INSERT INTO "Subgroup" ("characteristicId", "sequence", "timestamp", "count", "size", "sourceKey", "importBatchId", "mean", "spread", "createdAt") VALUES (?, ?, ?, NULL, NULL, ?, NULL, ?, NULL, ?)',
+  );
+  const insertMeasurement = bareSqlite.prepare('INSERT INTO "Measurement" ("subgroupId", "position", "value") VALUES (?, 0, ?)');
+  const bareStarted = performance.now();
+  bareSqlite.transaction(() => {
+    subgroups.forEach(([sequence, timestamp, sourceKey, mean, createdAt], index) => {
+      const { lastInsertRowid } = insertSubgroup.run(bare.characteristicId, sequence, timestamp, sourceKey, mean, createdAt);
+      insertMeasurement.run(lastInsertRowid, values[index]);
+    });
+  })();
+  const bareMilliseconds = performance.now() - bareStarted;
+  bareSqlite.close();
+
+  const importRate = ROWS / (importMilliseconds / 1000);
+  const bareRate = ROWS / (bareMilliseconds / 1000);
+  const ratio = importRate / bareRate;
+  const peakMegabytes = peakRss / 1024 / 1024;
+  console.log(`CSV: ${ROWS.toLocaleString("en")} rows, ${(fileBytes / 1024 / 1024).toFixed(1)} MB`);
+  console.log(`real import path: ${(importMilliseconds / 1000).toFixed(2)} s, ${Math.round(importRate).toLocaleString("en")} rows/s`);
+  console.log(`bare insert:      ${(bareMilliseconds / 1000).toFixed(2)} s, ${Math.round(bareRate).toLocaleString("en")} rows/s`);
+  console.log(`ratio (import / bare throughput): ${ratio.toFixed(2)} (target >= ${MINIMUM_RATIO})`);
+  console.log(`peak RSS during the import: ${peakMegabytes.toFixed(0)} MB (target < ${MAXIMUM_RSS_BYTES / 1024 / 1024} MB)`);
+  if (ratio < MINIMUM_RATIO || peakRss >= MAXIMUM_RSS_BYTES) {
+    console.log("FAILED");
+    process.exitCode = 1;
+  }
+} finally {
+  rmSync(directory, { recursive: true, force: true });
+}

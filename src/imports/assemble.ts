@@ -1,0 +1,164 @@
+/**
+ * Rows → subgroups, in file order. Rows sharing a subgroup id and standing together form one subgroup
+ * (without a subgroup column every row is one subgroup); each finished subgroup is checked with the
+ * shared `subgroupSchemaFor` (the same check as the HTTP API and manual entry: sizes against the
+ * characteristic, counts within sizes), its tags must agree across its rows, and its time must not go
+ * back before the previous accepted subgroup's. A subgroup with any bad row is rejected as a whole.
+ *
+ * Source key (what makes a re-import add nothing): "csv:" + base64url of the first 128 bits of the SHA-256 of the subgroup id, the
+ * time in epoch milliseconds, the recorded numbers (values, or count and size/units) and the occurrence
+ * number among identical subgroups at the same time in the file. Numbers are hashed as parsed, so the
+ * same readings exported again with another separator or decimal mark are recognised; tags are not part
+ * of the key, so renaming a tag in a re-export does not duplicate measurements.
+ */
+import { createHash } from "node:crypto";
+import { VARIABLES_CHART_TYPES, type ChartType } from "@/shared/constants";
+import { subgroupSchemaFor } from "@/shared/intake";
+import type { CsvProblem } from "@/src/io/csv/errors";
+import type { TRecorded } from "@/src/subgroups/summaries";
+import type { TColumnMapping } from "./options";
+import type { TParsedRow } from "./rows";
+
+/** Bytes of the SHA-256 digest kept in a source key: 128 bits, so a collision among 10^9 keys has odds near 10^-21. */
+const KEY_BYTES = 16;
+
+export interface TImportRow {
+  readonly line: number;
+  /** The subgroup id cell (trimmed), when a subgroup column is mapped. */
+  readonly label?: string;
+  readonly written: readonly string[];
+  /** Undefined when the row failed its own checks (then `problems` says why). */
+  readonly parsed?: TParsedRow;
+  readonly problems: readonly CsvProblem[];
+}
+
+export interface TAssembledSubgroup {
+  readonly firstLine: number;
+  readonly rows: readonly TImportRow[];
+  readonly timestamp: number;
+  readonly recorded: TRecorded;
+  readonly tags: Readonly<Record<string, string>>;
+  readonly sourceKey: string;
+}
+
+/** A rejected row with the reasons it was rejected. */
+export interface TRejectedRow {
+  readonly line: number;
+  readonly written: readonly string[];
+  readonly problems: readonly CsvProblem[];
+}
+
+export interface TAssemblerOutput {
+  accepted(subgroup: TAssembledSubgroup): void;
+  rejected(rows: readonly TRejectedRow[]): void;
+}
+
+export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgroupSize: number, output: TAssemblerOutput) {
+  const variables = VARIABLES_CHART_TYPES.includes(chart);
+  const schema = subgroupSchemaFor(chart, subgroupSize);
+  const firstLineOf = new Map<string, number>();
+  const fieldColumn: Partial<Record<string, string>> = {
+    timestamp: mapping.timestamp,
+    values: mapping.value,
+    count: mapping.count,
+    size: mapping.size,
+    units: mapping.units,
+  };
+  let pending: TImportRow[] = [];
+  let previousTime = -Infinity;
+  let occurrences = new Map<string, number>();
+
+  function reject(rows: readonly TImportRow[], problems: readonly CsvProblem[]): void {
+    const byLine = new Map<number, CsvProblem[]>();
+    for (const problem of problems) byLine.set(problem.line, [...(byLine.get(problem.line) ?? []), problem]);
+    const label = rows[0]?.label;
+    const badLines = [...byLine.keys()].sort((a, b) => a - b);
+    output.rejected(
+      rows.map((row) => ({
+        line: row.line,
+        written: row.written,
+        problems: byLine.get(row.line) ?? [
+          { line: row.line, message: `rejected with subgroup "${label ?? ""}", which has a problem on line ${badLines.join(", ")}` },
+        ],
+      })),
+    );
+  }
+
+  function finish(rows: TImportRow[]): void {
+    const first = rows[0];
+    if (first === undefined) return;
+    const ownProblems = rows.flatMap((row) => row.problems);
+    if (ownProblems.length > 0) return reject(rows, ownProblems);
+    const parsed = rows.map((row) => row.parsed as TParsedRow);
+    const head = parsed[0] as TParsedRow;
+    const problems: CsvProblem[] = [];
+    if (!variables && rows.length > 1) {
+      for (const row of rows.slice(1)) {
+        problems.push({ line: row.line, column: mapping.subgroup, message: `subgroup "${first.label ?? ""}" has ${rows.length} rows: a ${chart} chart takes one row per subgroup` });
+      }
+    }
+    for (const row of parsed.slice(1)) {
+      for (const tag of new Set([...Object.keys(head.tags), ...Object.keys(row.tags)])) {
+        if (head.tags[tag] !== row.tags[tag]) {
+          const column = mapping.tags.find((entry) => entry.tag === tag)?.column;
+          problems.push({
+            line: row.line,
+            column,
+            message: `tag "${tag}" is "${row.tags[tag] ?? ""}" here but "${head.tags[tag] ?? ""}" on line ${head.line}: the rows of one subgroup share their tags`,
+          });
+        }
+      }
+    }
+    const recorded: TRecorded = variables
+      ? { values: parsed.map((row) => row.value as number) }
+      : { count: head.count, size: head.size, units: head.units };
+    const checked = schema.safeParse({ timestamp: new Date(head.timestamp).toISOString(), ...recorded, tags: head.tags });
+    if (!checked.success) {
+      for (const issue of checked.error.issues) {
+        const field = String(issue.path[0] ?? "");
+        const what = variables && field === "values" ? `subgroup "${first.label ?? ""}" (${rows.length} rows): values ` : `${field} `;
+        problems.push({ line: first.line, column: fieldColumn[field] ?? mapping.subgroup, message: `${what}${issue.message}` });
+      }
+    }
+    if (head.timestamp < previousTime) {
+      problems.push({
+        line: first.line,
+        column: mapping.timestamp,
+        message: `${new Date(head.timestamp).toISOString()} is before the previous subgroup's ${new Date(previousTime).toISOString()}: rows must be in time order`,
+      });
+    }
+    if (problems.length > 0) return reject(rows, problems);
+
+    if (head.timestamp !== previousTime) occurrences = new Map();
+    previousTime = head.timestamp;
+    const numbers = variables ? (recorded.values ?? []).join(",") : `${recorded.count}/${recorded.size ?? ""}/${recorded.units ?? ""}`;
+    const content = `${first.label ?? ""}\u001f${head.timestamp}\u001f${numbers}`;
+    const occurrence = occurrences.get(content) ?? 0;
+    occurrences.set(content, occurrence + 1);
+    const sourceKey = `csv:${createHash("sha256").update(`${content}\u001f${occurrence}`).digest().subarray(0, KEY_BYTES).toString("base64url")}`;
+    output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, recorded, tags: head.tags, sourceKey });
+  }
+
+  return {
+    push(row: TImportRow): void {
+      const current = pending[0];
+      const together = mapping.subgroup !== undefined && current !== undefined && row.label === current.label;
+      if (together) {
+        pending.push(row);
+        return;
+      }
+      finish(pending);
+      pending = [row];
+      if (mapping.subgroup === undefined || row.label === undefined || row.label === "") return;
+      const earlier = firstLineOf.get(row.label);
+      if (earlier !== undefined) {
+        const problem = { line: row.line, column: mapping.subgroup, message: `subgroup "${row.label}" started on line ${earlier} and reappears after another subgroup: keep a subgroup's rows together` };
+        pending = [{ ...row, problems: [...row.problems, problem] }];
+      } else firstLineOf.set(row.label, row.line);
+    },
+    end(): void {
+      finish(pending);
+      pending = [];
+    },
+  };
+}

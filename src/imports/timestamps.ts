@@ -1,0 +1,104 @@
+/**
+ * Reading a timestamp cell of an imported file into milliseconds since the epoch, or a reason why not.
+ *
+ * Accepted forms (seconds and, for ISO, fractions of a second optional; "T" or a space between date and time):
+ * - ISO 8601 with a zone: 2026-03-01T06:00:00Z, 2026-03-01 06:00+01:00, 2026-03-01T06:00:00.250-0500;
+ * - ISO 8601 without a zone: 2026-03-01 06:00:00, read at the UTC offset the person states;
+ * - day.month.year: 01.03.2026 06:00, the dotted order being day first by convention, at the stated offset;
+ * - slash dates: 03/04/2026 06:00, only when the person states day-first or month-first (and an offset).
+ * Anything else is refused with the forms listed, never guessed at: a date alone, two-digit years,
+ * impossible dates (31.04.2026), hours past 23, leap seconds. A fixed offset (not a named zone) is used
+ * on purpose: files whose local times cross a summer-time change must carry the offset in each cell.
+ */
+import type { TDayMonthOrder } from "./options";
+
+export interface TTimestampReading {
+  /** Offset for times without a zone ("Z", "+01:00"); undefined refuses them. */
+  readonly utcOffset?: string;
+  readonly dayMonthOrder?: TDayMonthOrder;
+}
+
+export type TTimestampResult = { readonly ok: true; readonly milliseconds: number } | { readonly ok: false; readonly message: string };
+
+const TIME = String.raw`(\d{2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,9}))?)?`;
+const ISO = new RegExp(String.raw`^(\d{4})-(\d{2})-(\d{2})[T ]${TIME}\s*(Z|[+-]\d{2}:?\d{2})?$`, "i");
+const DOTTED = new RegExp(String.raw`^(\d{1,2})\.(\d{1,2})\.(\d{4})[ T]${TIME}$`);
+const SLASHED = new RegExp(String.raw`^(\d{1,2})/(\d{1,2})/(\d{4})[ T]${TIME}$`);
+const DATE_ONLY = /^(?:\d{4}-\d{2}-\d{2}|\d{1,2}[./]\d{1,2}[./]\d{4})$/;
+
+const FORMS = "2026-03-01T06:00:00Z (ISO 8601 with a zone), 2026-03-01 06:00, 01.03.2026 06:00 or 03/01/2026 06:00";
+
+const MONTH_NAMES = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+
+/** Minutes east of UTC for "Z", "+01:00" or "-0500". */
+function offsetMinutes(zone: string): number {
+  if (zone.toUpperCase() === "Z") return 0;
+  const sign = zone.startsWith("-") ? -1 : 1;
+  const digits = zone.slice(1).replace(":", "");
+  return sign * (Number(digits.slice(0, 2)) * 60 + Number(digits.slice(2, 4)));
+}
+
+interface Parts {
+  readonly year: number;
+  readonly month: number;
+  readonly day: number;
+  readonly time: readonly (string | undefined)[];
+}
+
+/** Milliseconds for a wall-clock reading at a UTC offset, or the reason it is not a real time. */
+function toMilliseconds(text: string, parts: Parts, zone: string): TTimestampResult {
+  const [hourText, minuteText, secondText, fractionText] = parts.time;
+  const hour = Number(hourText);
+  const minute = Number(minuteText);
+  const second = Number(secondText ?? "0");
+  const { year, month, day } = parts;
+  if (month < 1 || month > 12) return { ok: false, message: `"${text}" has month ${month}: months run from 1 to 12` };
+  const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
+  if (day < 1 || day > daysInMonth) {
+    return { ok: false, message: `"${text}" names day ${day} of ${MONTH_NAMES[month - 1]} ${year}, which has ${daysInMonth} days` };
+  }
+  if (hour > 23 || minute > 59 || second > 59) return { ok: false, message: `"${text}" is not a time of day (hours 00-23, minutes and seconds 00-59)` };
+  const offset = offsetMinutes(zone);
+  if (Math.abs(offset) > 14 * 60) return { ok: false, message: `"${text}" has the offset ${zone}, outside -12:00 to +14:00` };
+  const fraction = fractionText === undefined ? 0 : Number(`0.${fractionText}`) * 1000;
+  return { ok: true, milliseconds: Date.UTC(year, month - 1, day, hour, minute, second) + Math.round(fraction) - offset * 60_000 };
+}
+
+function noZone(text: string): TTimestampResult {
+  return {
+    ok: false,
+    message: `"${text}" has no time zone: state the UTC offset the file's times are written in (e.g. +01:00), or write ISO 8601 with a zone`,
+  };
+}
+
+function slashOrderProblem(text: string, first: number, second: number): string {
+  if (first > 12 && second <= 12) return `"${text}" is a slash date; it can only be day-first here, but the order is not stated: choose day-first for this file`;
+  if (second > 12 && first <= 12) return `"${text}" is a slash date; it can only be month-first here, but the order is not stated: choose month-first for this file`;
+  return `"${text}" is ambiguous: it reads as ${first} ${MONTH_NAMES[second - 1] ?? "?"} (day first) or ${MONTH_NAMES[first - 1] ?? "?"} ${second} (month first); choose the day/month order for this file`;
+}
+
+export function readTimestamp(text: string, reading: TTimestampReading): TTimestampResult {
+  const iso = ISO.exec(text);
+  if (iso !== null) {
+    const zone = iso[8] ?? reading.utcOffset;
+    if (zone === undefined) return noZone(text);
+    return toMilliseconds(text, { year: Number(iso[1]), month: Number(iso[2]), day: Number(iso[3]), time: iso.slice(4, 8) }, zone);
+  }
+  const dotted = DOTTED.exec(text);
+  if (dotted !== null) {
+    if (reading.utcOffset === undefined) return noZone(text);
+    return toMilliseconds(text, { day: Number(dotted[1]), month: Number(dotted[2]), year: Number(dotted[3]), time: dotted.slice(4, 8) }, reading.utcOffset);
+  }
+  const slashed = SLASHED.exec(text);
+  if (slashed !== null) {
+    const first = Number(slashed[1]);
+    const second = Number(slashed[2]);
+    if (reading.dayMonthOrder === undefined) return { ok: false, message: slashOrderProblem(text, first, second) };
+    if (reading.utcOffset === undefined) return noZone(text);
+    const [day, month] = reading.dayMonthOrder === "day-first" ? [first, second] : [second, first];
+    return toMilliseconds(text, { day, month, year: Number(slashed[3]), time: slashed.slice(4, 8) }, reading.utcOffset);
+  }
+  if (text === "") return { ok: false, message: "is empty: a timestamp is required" };
+  if (DATE_ONLY.test(text)) return { ok: false, message: `"${text}" is a date without a time of day: write the time too, e.g. ${FORMS}` };
+  return { ok: false, message: `"${text}" is not a timestamp in a known form: write e.g. ${FORMS}` };
+}
