@@ -2,13 +2,16 @@
  * The single-pass run-rule scanner shared by the batch evaluation and the incremental (live) form.
  *
  * Every rule of Western Electric (1956) and Nelson (1984) (definitions.ts: the rules and the conventions)
- * is decided from bit histories updated once per point: for each of "above the centre", "below",
- * "beyond 1σ above", "beyond 1σ below", "beyond 2σ above", "beyond 2σ below", "within 1σ", "increase
- * from the previous point" and "decrease", bit j of the history says whether that held j points ago
- * (15 bits are kept: the longest window). A rule is then a mask test: 9 in a row above is
- * `(above & 0x1FF) === 0x1FF`, 2 of 3 beyond 2σ a count of set bits among 3. Cost: a few integer
- * operations per point, no branch that depends on noise, no allocation except one small object per
- * firing, no window rescanned.
+ * is decided from bit histories updated once per point. Each point gets a zone code 0..6 (the number of
+ * the boundaries center − 2σ, center − σ, center (≥), center (>), center + σ, center + 2σ it passes, with
+ * the strictness of the conventions), plus 7 when it cannot count as within 1σ although inside the
+ * boundaries (no sigma, or below the centre where the lower 1σ boundary is under the floor). Lookup
+ * tables turn the code into history bits; bit j of a history says whether its condition held j points
+ * ago. Two conditions share one integer, the upper side (or increase) in bits 0–14 and the lower side
+ * (or decrease) in bits 15–29, so one shift updates both. 15 bits are kept: the longest window. A rule is then a mask test: 9 in a
+ * row above is `(sides & 0x1ff) === 0x1ff`. Cost: a few integer operations per point, no branch that
+ * depends on noise (on noisy data the flags are coin flips, and mispredicted branches would cost several
+ * times the rest), no allocation except one small object per firing, no window rescanned.
  *
  * The state is bounded by construction: whether a rule fires at point i, and where its window starts,
  * depends only on the points i − 14 .. i, so a scanner fed those points alone gives the same answer as
@@ -29,29 +32,32 @@ export interface Firing {
 
 const bit = (rule: RuleId): number => 1 << ruleOrder(rule);
 const WE_1 = bit("we-1");
-const WE_2 = bit("we-2");
-const WE_3 = bit("we-3");
-const WE_4 = bit("we-4");
 const NELSON_1 = bit("nelson-1");
-const NELSON_2 = bit("nelson-2");
-const NELSON_3 = bit("nelson-3");
-const NELSON_4 = bit("nelson-4");
-const NELSON_5 = bit("nelson-5");
-const NELSON_6 = bit("nelson-6");
-const NELSON_7 = bit("nelson-7");
-const NELSON_8 = bit("nelson-8");
 const LIMIT_RULES = WE_1 | NELSON_1;
 const RUN_RULES = ~LIMIT_RULES;
 
-/** Number of set bits in 0..31: the count of points beyond a boundary among the last 3 or 5. */
-const BITS_SET = Uint8Array.from({ length: 32 }, (_, mask) => {
-  let count = 0;
-  for (let rest = mask; rest !== 0; rest >>= 1) count += rest & 1;
-  return count;
-});
-
-/** Bits kept in each history: one per point of the longest window (15). */
+/** One history: a bit per point of the longest window (15 points: 0x7fff). */
 const HISTORY = (1 << LONGEST_RULE_WINDOW) - 1;
+/** The lower side's history starts at this bit, so two histories fill 30 bits (a small integer for V8). */
+const LOWER = LONGEST_RULE_WINDOW;
+/** After a shift, keeps the 14 newest bits of each history: bits 1–14 and 16–29. */
+const SHIFTED_PAIR = (HISTORY & ~1) | ((HISTORY >>> 1) << (LOWER + 1));
+
+/** History bits per zone code (see the file comment): code % 7 is the zone, code ≥ 7 "not within". */
+const zoneTable = (bits: (zone: number, withinUnknown: boolean) => number) =>
+  Int32Array.from({ length: 14 }, (_, code) => bits(code % 7, code >= 7));
+const SIDE_BITS = zoneTable((zone) => (zone >= 4 ? 1 : 0) | (zone <= 2 ? 1 << LOWER : 0));
+const BEYOND_ONE_BITS = zoneTable((zone) => (zone >= 5 ? 1 : 0) | (zone <= 1 ? 1 << LOWER : 0));
+const BEYOND_TWO_BITS = zoneTable((zone) => (zone === 6 ? 1 : 0) | (zone === 0 ? 1 << LOWER : 0));
+const WITHIN_BITS = zoneTable((zone, withinUnknown) => (zone >= 2 && zone <= 4 && !withinUnknown ? 1 : 0));
+/** Direction code +(step > 0) + 2·+(step < 0): an increase in the first history, a decrease in the second. */
+const DIRECTION_BITS = Int32Array.from([0, 1, 1 << LOWER]);
+
+const setBits = (mask: number): number => (mask === 0 ? 0 : (mask & 1) + setBits(mask >>> 1));
+/** 1 when the newest of the last 3 points (bit 0) is beyond 2σ and so is at least one other. */
+const TWO_OF_THREE = Uint8Array.from({ length: 8 }, (_, mask) => ((mask & 1) === 1 && setBits(mask) >= 2 ? 1 : 0));
+/** 1 when the newest of the last 5 points is beyond 1σ and so are at least 3 others. */
+const FOUR_OF_FIVE = Uint8Array.from({ length: 32 }, (_, mask) => ((mask & 1) === 1 && setBits(mask) >= 4 ? 1 : 0));
 
 export function ruleMask(rules: readonly RuleId[]): number {
   let mask = 0;
@@ -67,6 +73,59 @@ export interface ScanArrays {
   readonly sigma: Float64Array;
 }
 
+/** Pattern bits computed per point by the scanner. */
+const PATTERN_ABOVE_LIMIT = 1;
+const PATTERN_BELOW_LIMIT = 2;
+const PATTERN_EIGHT_ON_ONE_SIDE = 4;
+const PATTERN_FIVE_STEPS_ONE_WAY = 8;
+const PATTERN_THIRTEEN_ALTERNATIONS = 16;
+const PATTERN_TWO_OF_THREE = 32;
+const PATTERN_FOUR_OF_FIVE = 64;
+const PATTERN_FIFTEEN_WITHIN = 128;
+const PATTERN_EIGHT_BEYOND = 256;
+
+/** Append the firings of the requested rules for the patterns completed at `index` (rarely called). */
+function emitFirings(
+  out: Firing[],
+  chart: StatisticKey,
+  rules: number,
+  patterns: number,
+  index: number,
+  stretchStart: number,
+  sides: number,
+  beyondOne: number,
+  beyondTwo: number,
+): void {
+  const push = (rule: RuleId, windowStart: number, side?: "above" | "below"): void => {
+    if ((rules & bit(rule)) === 0) return;
+    out.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side });
+  };
+  if ((patterns & (PATTERN_ABOVE_LIMIT | PATTERN_BELOW_LIMIT)) !== 0) {
+    const side = (patterns & PATTERN_ABOVE_LIMIT) !== 0 ? "above" : "below";
+    push("we-1", index, side);
+    push("nelson-1", index, side);
+  }
+  if ((patterns & PATTERN_EIGHT_ON_ONE_SIDE) !== 0) {
+    const side = (sides & 1) === 1 ? "above" : "below";
+    push("we-4", index - 7, side);
+    if (((side === "above" ? sides : sides >>> LOWER) & 0x1ff) === 0x1ff) push("nelson-2", index - 8, side);
+  }
+  if ((patterns & PATTERN_FIVE_STEPS_ONE_WAY) !== 0) push("nelson-3", index - 5);
+  if ((patterns & PATTERN_THIRTEEN_ALTERNATIONS) !== 0) push("nelson-4", index - 13);
+  if ((patterns & PATTERN_TWO_OF_THREE) !== 0) {
+    const side = (beyondTwo & 1) === 1 ? "above" : "below";
+    push("we-2", Math.max(stretchStart, index - 2), side);
+    push("nelson-5", Math.max(stretchStart, index - 2), side);
+  }
+  if ((patterns & PATTERN_FOUR_OF_FIVE) !== 0) {
+    const side = (beyondOne & 1) === 1 ? "above" : "below";
+    push("we-3", Math.max(stretchStart, index - 4), side);
+    push("nelson-6", Math.max(stretchStart, index - 4), side);
+  }
+  if ((patterns & PATTERN_FIFTEEN_WITHIN) !== 0) push("nelson-7", index - 14);
+  if ((patterns & PATTERN_EIGHT_BEYOND) !== 0) push("nelson-8", index - 7);
+}
+
 export class RuleScanner {
   private readonly chart: StatisticKey;
   private readonly rules: number;
@@ -75,15 +134,11 @@ export class RuleScanner {
   /** First index of the current stretch of values (the first index fed, or just after the last NaN). */
   private stretchStart: number;
   private previous = Number.NaN;
-  private above = 0;
-  private below = 0;
-  private oneAbove = 0;
-  private oneBelow = 0;
-  private twoAbove = 0;
-  private twoBelow = 0;
+  private sides = 0;
+  private beyondOne = 0;
+  private beyondTwo = 0;
   private within = 0;
-  private rising = 0;
-  private falling = 0;
+  private directions = 0;
 
   constructor(chart: StatisticKey, rules: number, center: number, floor: number, firstIndex = 0) {
     this.chart = chart;
@@ -101,33 +156,23 @@ export class RuleScanner {
     const { points, ucl, lcl, sigma } = arrays;
     const { rules, center, floor, chart } = this;
     // Module constants copied to locals: the loop then reads registers, not the module context.
-    const bitsSet = BITS_SET;
+    const sideBits = SIDE_BITS;
+    const beyondOneBits = BEYOND_ONE_BITS;
+    const beyondTwoBits = BEYOND_TWO_BITS;
+    const withinBits = WITHIN_BITS;
+    const directionBits = DIRECTION_BITS;
+    const twoOfThree = TWO_OF_THREE;
+    const fourOfFive = FOUR_OF_FIVE;
     const history = HISTORY;
-    const limitRules = (rules & LIMIT_RULES) !== 0;
+    const shiftedPair = SHIFTED_PAIR;
     const runRules = (rules & RUN_RULES) !== 0;
-    const we1 = (rules & WE_1) !== 0;
-    const we2 = (rules & WE_2) !== 0;
-    const we3 = (rules & WE_3) !== 0;
-    const we4 = (rules & WE_4) !== 0;
-    const nelson1 = (rules & NELSON_1) !== 0;
-    const nelson2 = (rules & NELSON_2) !== 0;
-    const nelson3 = (rules & NELSON_3) !== 0;
-    const nelson4 = (rules & NELSON_4) !== 0;
-    const nelson5 = (rules & NELSON_5) !== 0;
-    const nelson6 = (rules & NELSON_6) !== 0;
-    const nelson7 = (rules & NELSON_7) !== 0;
-    const nelson8 = (rules & NELSON_8) !== 0;
     let stretchStart = this.stretchStart;
     let previous = this.previous;
-    let above = this.above;
-    let below = this.below;
-    let oneAbove = this.oneAbove;
-    let oneBelow = this.oneBelow;
-    let twoAbove = this.twoAbove;
-    let twoBelow = this.twoBelow;
+    let sides = this.sides;
+    let beyondOne = this.beyondOne;
+    let beyondTwo = this.beyondTwo;
     let within = this.within;
-    let rising = this.rising;
-    let falling = this.falling;
+    let directions = this.directions;
 
     for (let position = from; position < to; position++) {
       const value = points[position]!;
@@ -137,95 +182,77 @@ export class RuleScanner {
           // No value by definition: every run and window restarts after it.
           stretchStart = index + 1;
           previous = Number.NaN;
-          above = below = oneAbove = oneBelow = twoAbove = twoBelow = within = rising = falling = 0;
+          sides = beyondOne = beyondTwo = within = directions = 0;
           continue;
         }
         throw new SpcInputError(`${chart}: point ${index} is not finite (${value})`, index);
       }
 
-      if (limitRules && (value > ucl[position]! || value < lcl[position]!)) {
-        const side = value > ucl[position]! ? "above" : "below";
-        if (we1) out.push({ rule: "we-1", chart, index, windowStart: index, side });
-        if (nelson1) out.push({ rule: "nelson-1", chart, index, windowStart: index, side });
+      // Rule 1 against the series' own limits; pattern families are added below.
+      let patterns = +(value > ucl[position]!) | (+(value < lcl[position]!) << 1);
+      if (!runRules) {
+        if (patterns !== 0) emitFirings(out, chart, rules, patterns, index, stretchStart, 0, 0, 0);
+        continue;
       }
-      if (!runRules) continue;
 
       const deviation = sigma[position]!;
       if (deviation < 0) throw new SpcInputError(`${chart}: sigma at point ${index} is negative (${deviation})`, index);
-      // Zone boundaries. A lower boundary below the floor is undefined: nothing is beyond it, and a point
-      // below the centre is not known to be within 1σ. A NaN sigma makes every zone comparison false.
-      const upperOne = center + deviation;
+      // Effective zone boundaries (the branches follow sigma and the floor, not the noise). Without a
+      // sigma no point is beyond any boundary; a lower boundary under the floor is passed by every point.
+      const zonesKnown = deviation >= 0;
       const lowerOne = center - deviation;
       const lowerTwo = center - 2 * deviation;
       const lowerOneDefined = lowerOne >= floor;
-      const beyondOneLower = lowerOneDefined ? lowerOne : Number.NEGATIVE_INFINITY;
-      const withinOneLower = lowerOneDefined ? lowerOne : center;
-      const beyondTwoLower = lowerTwo >= floor ? lowerTwo : Number.NEGATIVE_INFINITY;
-      // Flags as 0/1 arithmetic rather than branches: on noisy data they are coin flips, and
-      // mispredicted branches would cost several times the rest.
+      const upperOneBoundary = zonesKnown ? center + deviation : Number.POSITIVE_INFINITY;
+      const upperTwoBoundary = zonesKnown ? center + 2 * deviation : Number.POSITIVE_INFINITY;
+      const lowerOneBoundary = zonesKnown && lowerOneDefined ? lowerOne : Number.NEGATIVE_INFINITY;
+      const lowerTwoBoundary = zonesKnown && lowerTwo >= floor ? lowerTwo : Number.NEGATIVE_INFINITY;
+      const withinUnknown = zonesKnown ? (lowerOneDefined ? 0 : +(value < center)) : 1;
+      const code =
+        +(value >= lowerTwoBoundary) +
+        +(value >= lowerOneBoundary) +
+        +(value >= center) +
+        +(value > center) +
+        +(value > upperOneBoundary) +
+        +(value > upperTwoBoundary) +
+        7 * withinUnknown;
       const step = value - previous; // NaN after a restart: neither an increase nor a decrease
-      above = ((above << 1) | +(value > center)) & history;
-      below = ((below << 1) | +(value < center)) & history;
-      oneAbove = ((oneAbove << 1) | +(value > upperOne)) & history;
-      oneBelow = ((oneBelow << 1) | +(value < beyondOneLower)) & history;
-      twoAbove = ((twoAbove << 1) | +(value > center + 2 * deviation)) & history;
-      twoBelow = ((twoBelow << 1) | +(value < beyondTwoLower)) & history;
-      within = ((within << 1) | (+(value <= upperOne) & +(value >= withinOneLower))) & history;
-      rising = ((rising << 1) | +(step > 0)) & history;
-      falling = ((falling << 1) | +(step < 0)) & history;
       previous = value;
+      sides = ((sides << 1) & shiftedPair) | sideBits[code]!;
+      beyondOne = ((beyondOne << 1) & shiftedPair) | beyondOneBits[code]!;
+      beyondTwo = ((beyondTwo << 1) & shiftedPair) | beyondTwoBits[code]!;
+      within = ((within << 1) & history) | withinBits[code]!;
+      directions = ((directions << 1) & shiftedPair) | directionBits[+(step > 0) + 2 * +(step < 0)]!;
 
-      // Firing checks, each rarely true so its branch is well predicted. Masks: 0xff = the last 8
-      // points, 0x1ff = 9, 0x1f = 5, 0x7 = 3, 0x1fff = 13, 0xfff = 12.
-      const sameSide = (above & 0xff) === 0xff ? 1 : (below & 0xff) === 0xff ? -1 : 0;
-      if (sameSide !== 0) {
-        const side = sameSide > 0 ? "above" : "below";
-        if (we4) out.push({ rule: "we-4", chart, index, windowStart: index - 7, side });
-        if (nelson2 && ((sameSide > 0 ? above : below) & 0x1ff) === 0x1ff) {
-          out.push({ rule: "nelson-2", chart, index, windowStart: index - 8, side });
-        }
+      // Which patterns complete at this point, as bits (PATTERN_*, written as literals: a module
+      // constant read in the loop costs a context load). Each test is rarely true, so its branch is
+      // well predicted; the firings themselves are built outside the loop. Masks: 0xff = the
+      // last 8 points, 0x1f = 5, 0xfff = 12, 0x1fff = 13; ">>> 15" reads the lower side's history.
+      const below = sides >>> 15;
+      const beyondOneBelow = beyondOne >>> 15;
+      if ((sides & 0xff) === 0xff || (below & 0xff) === 0xff) patterns |= 4; // PATTERN_EIGHT_ON_ONE_SIDE
+      if ((directions & 0x1f) === 0x1f || ((directions >>> 15) & 0x1f) === 0x1f) patterns |= 8; // PATTERN_FIVE_STEPS_ONE_WAY
+      if (
+        ((directions ^ (directions >>> 1)) & 0xfff) === 0xfff &&
+        ((directions | (directions >>> 15)) & 0x1fff) === 0x1fff
+      ) {
+        patterns |= 16; // PATTERN_THIRTEEN_ALTERNATIONS
       }
-      if (nelson3 && ((rising & 0x1f) === 0x1f || (falling & 0x1f) === 0x1f)) {
-        out.push({ rule: "nelson-3", chart, index, windowStart: index - 5 });
+      if ((twoOfThree[beyondTwo & 0x7]! | twoOfThree[(beyondTwo >>> 15) & 0x7]!) !== 0) patterns |= 32; // PATTERN_TWO_OF_THREE
+      if ((fourOfFive[beyondOne & 0x1f]! | fourOfFive[beyondOneBelow & 0x1f]!) !== 0) patterns |= 64; // PATTERN_FOUR_OF_FIVE
+      if (within === history && (sides & history) !== 0 && below !== 0) patterns |= 128; // PATTERN_FIFTEEN_WITHIN
+      if (((beyondOne | beyondOneBelow) & 0xff) === 0xff && (sides & 0xff) !== 0 && (below & 0xff) !== 0) {
+        patterns |= 256; // PATTERN_EIGHT_BEYOND
       }
-      // 13 successive differences, none zero, each of the opposite sign to the one before.
-      if (nelson4 && ((rising | falling) & 0x1fff) === 0x1fff && ((rising ^ (rising >> 1)) & 0xfff) === 0xfff) {
-        out.push({ rule: "nelson-4", chart, index, windowStart: index - 13 });
-      }
-      // k of m: the newest point must be one of the k (it completes the pattern); only one side can
-      // hold it, so the two products never both count.
-      const twoOfThree = (twoAbove & 1) * bitsSet[twoAbove & 0x7]! + (twoBelow & 1) * bitsSet[twoBelow & 0x7]!;
-      if (twoOfThree >= 2) {
-        const side = (twoAbove & 1) === 1 ? "above" : "below";
-        const windowStart = Math.max(stretchStart, index - 2);
-        if (we2) out.push({ rule: "we-2", chart, index, windowStart, side });
-        if (nelson5) out.push({ rule: "nelson-5", chart, index, windowStart, side });
-      }
-      const fourOfFive = (oneAbove & 1) * bitsSet[oneAbove & 0x1f]! + (oneBelow & 1) * bitsSet[oneBelow & 0x1f]!;
-      if (fourOfFive >= 4) {
-        const side = (oneAbove & 1) === 1 ? "above" : "below";
-        const windowStart = Math.max(stretchStart, index - 4);
-        if (we3) out.push({ rule: "we-3", chart, index, windowStart, side });
-        if (nelson6) out.push({ rule: "nelson-6", chart, index, windowStart, side });
-      }
-      if (nelson7 && within === history && above !== 0 && below !== 0) {
-        out.push({ rule: "nelson-7", chart, index, windowStart: index - 14 });
-      }
-      if (nelson8 && ((oneAbove | oneBelow) & 0xff) === 0xff && (above & 0xff) !== 0 && (below & 0xff) !== 0) {
-        out.push({ rule: "nelson-8", chart, index, windowStart: index - 7 });
-      }
+      if (patterns !== 0) emitFirings(out, chart, rules, patterns, index, stretchStart, sides, beyondOne, beyondTwo);
     }
 
     this.stretchStart = stretchStart;
     this.previous = previous;
-    this.above = above;
-    this.below = below;
-    this.oneAbove = oneAbove;
-    this.oneBelow = oneBelow;
-    this.twoAbove = twoAbove;
-    this.twoBelow = twoBelow;
+    this.sides = sides;
+    this.beyondOne = beyondOne;
+    this.beyondTwo = beyondTwo;
     this.within = within;
-    this.rising = rising;
-    this.falling = falling;
+    this.directions = directions;
   }
 }
