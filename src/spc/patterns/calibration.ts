@@ -6,8 +6,8 @@
  * and the unit tests (small runs, the asserted minimums).
  *
  * The reported kind of one series is the kind of the pattern that overlaps most subgroups of the
- * affected stretch (from the onset to the end; for in-control series the whole monitoring stretch), or
- * "none" when no pattern overlaps it. Cost: O(series × length).
+ * affected stretch (from the onset to the end; the onset subgroup alone for an outlier; for in-control
+ * series the whole monitoring stretch), or "none" when no pattern overlaps it. Cost: O(series × length).
  */
 import { PATTERN_KINDS } from "../../../shared/patterns";
 import { estimateParameters, evaluateChart } from "../charts";
@@ -106,7 +106,8 @@ function readSeries(spec: SimulationSpec, rules: ReturnType<typeof resolveRuleSe
   const signals: Signal[] = result.statistics.flatMap((series) => evaluateRules(series, rules).signals);
   const patterns = readPatterns(result, signals, data);
   const regionStart = spec.kind === "none" ? spec.baseline : spec.onset;
-  const regionEnd = spec.baseline + spec.monitoring - 1;
+  // An outlier affects one subgroup; a chance episode elsewhere in the series must not outvote it.
+  const regionEnd = spec.kind === "outlier" ? spec.onset : spec.baseline + spec.monitoring - 1;
   let best: SimulatedKind = "none";
   let bestOverlap = 0;
   for (const pattern of patterns) {

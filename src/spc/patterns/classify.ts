@@ -24,6 +24,11 @@
  *    `levelLogLikelihood`; trend when the drift beats the step by `trendMargin`, else shift.
  * An episode that passes none of these is left unread: the signal stays, but no pattern is claimed.
  */
+import chisquareQuantile from "@stdlib/stats-base-dists-chisquare-quantile";
+import binomialCdf from "@stdlib/stats-base-dists-binomial-cdf";
+import fCdf from "@stdlib/stats-base-dists-f-cdf";
+import normalCdf from "@stdlib/stats-base-dists-normal-cdf";
+import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { autocorrelation, dominantPeriod } from "../evidence";
 import { driftChangePoint, stepChangePoint } from "../change-point";
 import type { PatternKind } from "../../../shared/patterns";
@@ -31,37 +36,55 @@ import type { RuleId, Signal } from "../types";
 import type { Episode } from "./episodes";
 import { isolationOf, type Isolation } from "./isolation";
 import type { PatternEvidence } from "./pattern";
+import { segmentShiftLogLikelihood } from "./segment-shift";
 import { shapeFeatures, type ShapeFeatures } from "./shape-features";
 
 export interface PatternThresholds {
   readonly stratificationMeanSquare: number;
   readonly stratificationLength: number;
-  readonly outlierDistance: number;
+  /** Chance that any in-control point of the chart stands out enough to be read as an outlier. */
+  readonly outlierSignificance: number;
   readonly cyclePValue: number;
   readonly cycleAutocorrelation: number;
   readonly mixtureCentreShare: number;
   readonly mixtureBimodality: number;
   readonly mixtureAlternation: number;
+  /** Binomial upper-tail level for the share of points beyond 1σ (see avoidsCentre). */
+  readonly centreAvoidanceSignificance: number;
   readonly spreadMeanSquare: number;
+  /** Upper-tail χ² level for the excess variance a mixture or a level-chart spread must show. */
+  readonly varianceSignificance: number;
+  /** Step or drift against the known centre (change-point/step.ts, drift.ts). */
   readonly levelLogLikelihood: number;
+  /** Two segments with both levels unknown (segment-shift.ts). */
+  readonly segmentLogLikelihood: number;
   readonly trendMargin: number;
   /** Spread read from an R, S or MR chart: ratio of the statistic's mean to its centre. */
   readonly spreadRatio: number;
+  /** One-sided level of the variance test behind a spread read from an R, S or MR chart. */
+  readonly spreadSignificance: number;
+  /** Upper-tail F level for the scatter after an episode's start against before it. */
+  readonly spreadGrowthSignificance: number;
 }
 
 export const DEFAULT_PATTERN_THRESHOLDS: PatternThresholds = {
   stratificationMeanSquare: 0.4,
   stratificationLength: 20,
-  outlierDistance: 4,
+  outlierSignificance: 0.01,
   cyclePValue: 0.01,
   cycleAutocorrelation: 0.3,
   mixtureCentreShare: 0.25,
   mixtureBimodality: 5 / 9,
   mixtureAlternation: 0.8,
+  centreAvoidanceSignificance: 0.001,
   spreadMeanSquare: 2.5,
-  levelLogLikelihood: 6,
+  varianceSignificance: 0.001,
+  levelLogLikelihood: 12,
+  segmentLogLikelihood: 8,
   trendMargin: 1,
   spreadRatio: 1.4,
+  spreadSignificance: 0.001,
+  spreadGrowthSignificance: 0.01,
 };
 
 /**
@@ -106,10 +129,11 @@ export function classifyLevelEpisode(
   const shapeEvidence = spanShape ? shapeEvidenceOf(spanShape) : {};
 
   if (fired("nelson-7")) {
-    const inside = shapeOver(standardised, episode.start, episode.end);
-    const length = episode.end - episode.start + 1;
-    if (inside && length >= thresholds.stratificationLength && inside.meanSquare <= thresholds.stratificationMeanSquare) {
-      return { kind: "stratification", evidence: { rules, ...shapeEvidenceOf(inside) } };
+    // Over the episode and the points after it: a chance run of 15 inside ±1σ is followed by ordinary
+    // scatter, stratification by more of the same.
+    const length = contextEnd - episode.start + 1;
+    if (spanShape && length >= thresholds.stratificationLength && spanShape.meanSquare <= thresholds.stratificationMeanSquare) {
+      return { kind: "stratification", evidence: { rules, ...shapeEvidence } };
     }
   }
 
@@ -130,15 +154,21 @@ export function classifyLevelEpisode(
   if (spanShape && Math.abs(spanShape.mean) <= 1) {
     const crowdsBothSides =
       fired("nelson-4", "nelson-8") ||
-      (spanShape.count >= MIXTURE_MINIMUM_POINTS && spanShape.beyondOne >= 0.5 && spanShape.bothSides >= 0.25);
+      (spanShape.count >= MIXTURE_MINIMUM_POINTS && spanShape.bothSides >= 0.25 && avoidsCentre(spanShape, thresholds));
     const twoPopulations =
       spanShape.alternation >= thresholds.mixtureAlternation ||
       spanShape.centreShare <= thresholds.mixtureCentreShare ||
       spanShape.bimodality >= thresholds.mixtureBimodality;
-    if (crowdsBothSides && twoPopulations) return { kind: "mixture", evidence: { rules, ...shapeEvidence } };
+    if (crowdsBothSides && twoPopulations && excessVariance(spanShape, thresholds)) return { kind: "mixture", evidence: { rules, ...shapeEvidence } };
   }
 
-  if (spanShape && spanShape.meanSquare >= thresholds.spreadMeanSquare && spanShape.bothSides >= 0.25) {
+  if (
+    spanShape &&
+    spanShape.meanSquare >= thresholds.spreadMeanSquare &&
+    spanShape.bothSides >= 0.25 &&
+    excessVariance(spanShape, thresholds) &&
+    grewFromBefore(standardised, contextStart, episode.start, spanShape, thresholds)
+  ) {
     return {
       kind: "spread",
       evidence: { rules, ...shapeEvidence, spreadRatio: Math.sqrt(spanShape.meanSquare), direction: "increase" },
@@ -152,8 +182,11 @@ export function classifyLevelEpisode(
     const window = filled.subarray(levelWindow.start, levelWindow.end + 1);
     const step = stepChangePoint(window, { center: 0, sigma: 1 });
     const drift = driftChangePoint(window, { center: 0, sigma: 1 });
-    const best = Math.max(step.logLikelihoodRatio, drift.logLikelihoodRatio);
-    if (best >= thresholds.levelLogLikelihood) {
+    const segment = segmentShiftLogLikelihood(window);
+    const significant =
+      segment >= thresholds.segmentLogLikelihood ||
+      Math.max(step.logLikelihoodRatio, drift.logLikelihoodRatio) >= thresholds.levelLogLikelihood;
+    if (significant) {
       const trend = drift.logLikelihoodRatio - step.logLikelihoodRatio >= thresholds.trendMargin;
       return {
         kind: trend ? "trend" : "shift",
@@ -162,12 +195,61 @@ export function classifyLevelEpisode(
           rules,
           stepLogLikelihood: step.logLikelihoodRatio,
           driftLogLikelihood: drift.logLikelihoodRatio,
+          segmentLogLikelihood: segment,
           ...(trend ? { slopeInSigma: drift.slopeInSigma } : { shiftInSigma: step.shiftInSigma }),
         },
       };
     }
   }
   return undefined;
+}
+
+/**
+ * Whether the points vary more than chance allows: Σzᵢ² over N points is χ²_N in control (known centre
+ * and σ), tested in the upper tail at `varianceSignificance` (the χ² test for a variance, e.g.
+ * NIST/SEMATECH e-Handbook §1.3.5.8). A mixture of streams at ±a has E z² = 1 + a², a spread ×k has k²;
+ * a chance run of alternations (Nelson 4) or of points beyond 1σ leaves Σz² near N.
+ */
+function excessVariance(shape: ShapeFeatures, thresholds: PatternThresholds): boolean {
+  return shape.count * shape.meanSquare >= chisquareQuantile(1 - thresholds.varianceSignificance, shape.count);
+}
+
+/**
+ * Nelson's test 8 read over a whole stretch: more points beyond 1σ than chance allows. In control a
+ * point is beyond 1σ with probability 2(1 − Φ(1)) = 0.3173, so the count over N points is binomial;
+ * the upper-tail probability must be below `centreAvoidanceSignificance`.
+ */
+function avoidsCentre(shape: ShapeFeatures, thresholds: PatternThresholds): boolean {
+  const beyond = Math.round(shape.beyondOne * shape.count);
+  return 1 - binomialCdf(beyond - 1, shape.count, BEYOND_ONE_SIGMA) < thresholds.centreAvoidanceSignificance;
+}
+
+/** P(|Z| > 1) for a standard normal Z. */
+const BEYOND_ONE_SIGMA = 2 * (1 - normalCdf(1, 0, 1));
+
+/** Fewest points before an episode that its scatter is compared with (below that, only the limits). */
+const MINIMUM_POINTS_BEFORE = 10;
+
+/**
+ * Whether the scatter grew at the episode, not merely exceeds the limits: Σz²/N after against before the
+ * episode (both about the known centre, so each is χ²_N/N in control and the ratio is F), upper tail at
+ * `spreadGrowthSignificance` (the F test for two variances, NIST/SEMATECH e-Handbook §1.3.5.9). Limits
+ * computed from data that scatter more than the model says throughout (overdispersed counts) put many
+ * points near them everywhere; that is not a change in spread.
+ */
+function grewFromBefore(
+  standardised: Float64Array,
+  start: number,
+  end: number,
+  after: ShapeFeatures,
+  thresholds: PatternThresholds,
+): boolean {
+  const before = standardised.subarray(start, end).filter((value) => !Number.isNaN(value));
+  if (before.length < MINIMUM_POINTS_BEFORE) return true;
+  const meanSquareBefore = before.reduce((sum, value) => sum + value * value, 0) / before.length;
+  if (meanSquareBefore === 0) return true;
+  const ratio = after.meanSquare / meanSquareBefore;
+  return 1 - fCdf(ratio, after.count, before.length) < thresholds.spreadGrowthSignificance;
 }
 
 function shapeOver(standardised: Float64Array, start: number, end: number): ShapeFeatures | undefined {
@@ -194,8 +276,17 @@ function shapeEvidenceOf(shape: ShapeFeatures): Partial<PatternEvidence> {
  */
 const CALM_NEIGHBOUR_MEAN_SQUARE = 2;
 
-/** Points beyond the 3σ limits (rule 1) that stand alone among calm neighbours. */
+/**
+ * Points beyond the 3σ limits (rule 1) that stand alone among calm neighbours, farther from their level
+ * than the largest of the chart's N in-control points reaches by chance: the distance z − (mean of k
+ * neighbours) has variance 1 + 1/k, and the largest |z| of N independent normal points exceeds
+ * Φ⁻¹(1 − α/(2N)) with probability at most α (Šidák/Bonferroni bound for the maximum normed residual with
+ * σ known; common practice), α = `outlierSignificance`. About 3.6σ for 30 points, 4σ for 120, 4.4σ for
+ * 1000: a short chart needs less to single a point out, a long one more.
+ */
 export function findIsolatedPoints(standardised: Float64Array, signals: readonly Signal[], thresholds: PatternThresholds): Isolation[] {
+  const defined = standardised.filter((value) => !Number.isNaN(value)).length;
+  const largestByChance = normalQuantile(1 - thresholds.outlierSignificance / (2 * Math.max(1, defined)), 0, 1);
   const beyondLimits = new Set(
     signals.filter((signal) => signal.rule === "we-1" || signal.rule === "nelson-1").flatMap((signal) => signal.firing),
   );
@@ -206,7 +297,7 @@ export function findIsolatedPoints(standardised: Float64Array, signals: readonly
       (isolation) =>
         Math.abs(isolation.neighbourMean) < 1 &&
         isolation.neighbourMeanSquare <= CALM_NEIGHBOUR_MEAN_SQUARE &&
-        isolation.distance >= thresholds.outlierDistance,
+        isolation.distance >= largestByChance * Math.sqrt(1 + 1 / Math.max(1, isolation.neighbours)),
     );
 }
 

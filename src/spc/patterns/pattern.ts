@@ -35,6 +35,8 @@ export interface PatternEvidence {
   /** Profile log-likelihood ratios of the best step and the best drift against no change. */
   readonly stepLogLikelihood?: number;
   readonly driftLogLikelihood?: number;
+  /** Two-segment shift statistic with both levels unknown (segment-shift.ts). */
+  readonly segmentLogLikelihood?: number;
   /** Cycle: Fisher's g share of the variance at the peak, its p-value, the autocorrelation at the period. */
   readonly cycleStrength?: number;
   readonly cyclePValue?: number;
@@ -51,6 +53,8 @@ export interface PatternEvidence {
   readonly isolation?: number;
   /** Spread: ratio of the dispersion statistic (or of mean z²) to its in-control value, and direction. */
   readonly spreadRatio?: number;
+  /** Spread from an R, S or MR chart: one-sided p-value of the variance test (spread-test.ts). */
+  readonly spreadPValue?: number;
   readonly direction?: "increase" | "decrease";
   readonly recordingSlip?: RecordingSlipReading;
 }

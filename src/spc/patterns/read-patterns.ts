@@ -24,6 +24,7 @@ import { EPISODE_GAP, groupIntoEpisodes, type Episode } from "./episodes";
 import { levelSeries, type LevelSeries } from "./level-series";
 import type { Pattern, PatternChangePoint, RecordingSlipReading } from "./pattern";
 import { recordingSlipCandidates } from "./recording-slip";
+import { spreadTest } from "./spread-test";
 
 export interface ReadPatternsOptions {
   /** Largest gap between the signals of one episode (default 10 subgroups). */
@@ -98,7 +99,7 @@ export function readPatterns(
     if (!series) continue;
     const explained = patterns.find((pattern) => explains(pattern, episode));
     if (explained) continue;
-    const spread = readSpread(series, episode, last, thresholds);
+    const spread = readSpread(series, episode, data, result.parameters.sigma, last, thresholds);
     if (spread) patterns.push(spread);
   }
   return patterns.sort((first, second) => first.start - second.start);
@@ -119,17 +120,31 @@ function explains(pattern: Pattern, episode: Episode): boolean {
  * Spread from a dispersion episode: the mean of the statistic over the episode and up to LOOKAHEAD
  * points after it, against its centre line, leaving out the two largest values (a single far value makes
  * two large moving ranges). At least LOOKAHEAD + 1 points are used (the window reaches back when the
- * series ends), so one chance point beyond the limit does not make a pattern.
+ * series ends), and the change must be significant by the variance test of spread-test.ts, so one
+ * chance point beyond the limit does not make a pattern.
  */
-function readSpread(series: StatisticSeries, episode: Episode, last: number, thresholds: PatternThresholds): Pattern | undefined {
+function readSpread(
+  series: StatisticSeries,
+  episode: Episode,
+  data: ChartData,
+  sigma: number,
+  last: number,
+  thresholds: PatternThresholds,
+): Pattern | undefined {
   const end = Math.min(last, episode.end + LOOKAHEAD);
   const start = Math.max(0, Math.min(episode.start, end - LOOKAHEAD));
   const points = [...series.points.subarray(start, end + 1)].filter((point) => !Number.isNaN(point)).sort((a, b) => a - b);
   const kept = points.slice(0, Math.max(1, points.length - TRIMMED_LARGEST));
   if (points.length === 0 || !(series.center > 0)) return undefined;
   const ratio = kept.reduce((sum, point) => sum + point, 0) / kept.length / series.center;
-  const increase = ratio >= thresholds.spreadRatio;
-  const decrease = ratio <= 1 / thresholds.spreadRatio;
+  // The reading must agree with what fired: points above the centre line cannot show a decrease.
+  const firedAbove = episode.firing.some((point) => series.points[point]! > series.center);
+  const firedBelow = episode.firing.some((point) => series.points[point]! < series.center);
+  // Beyond chance too: a single range above its limit among ordinary ones is a signal, not a new spread.
+  const test = data.kind === "variables" ? spreadTest(data, sigma, start, end) : undefined;
+  if (!test) return undefined;
+  const increase = firedAbove && ratio >= thresholds.spreadRatio && test.pIncrease < thresholds.spreadSignificance;
+  const decrease = firedBelow && ratio <= 1 / thresholds.spreadRatio && test.pDecrease < thresholds.spreadSignificance;
   if (!increase && !decrease) return undefined;
   return {
     kind: "spread",
@@ -139,6 +154,7 @@ function readSpread(series: StatisticSeries, episode: Episode, last: number, thr
     evidence: {
       rules: [...new Set(episode.signals.map((signal) => signal.rule))],
       spreadRatio: ratio,
+      spreadPValue: increase ? test.pIncrease : test.pDecrease,
       direction: increase ? "increase" : "decrease",
     },
     causes: increase ? CAUSES_TO_CHECK.spread : CAUSES_OF_REDUCED_SPREAD,
