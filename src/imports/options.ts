@@ -4,6 +4,7 @@
  * whole import. zod only, so the browser form and the server check the same schema.
  */
 import { z } from "zod";
+import { VARIABLES_CHART_TYPES, type ChartType } from "@/shared/constants";
 import { INTAKE_LIMITS } from "@/shared/intake";
 
 export const IMPORT_MODES = ["all-or-nothing", "valid-only"] as const;
@@ -19,6 +20,24 @@ export const UTC_OFFSET_PATTERN = /^(?:Z|[+-](?:0\d|1[0-4]):[0-5]\d)$/;
 /** The measurement roles a file column can play (tags are listed separately). */
 export const COLUMN_ROLES = ["timestamp", "subgroup", "value", "count", "size", "units"] as const;
 export type TColumnRole = (typeof COLUMN_ROLES)[number];
+
+/** Plain words for each role, in messages and form labels. */
+export const COLUMN_ROLE_WORDS: Record<TColumnRole, string> = {
+  timestamp: "timestamp",
+  subgroup: "subgroup id",
+  value: "measured value",
+  count: "count (defectives or defects)",
+  size: "sample size",
+  units: "inspection units",
+};
+
+/** The measurement roles a chart reads from a file; every other one is refused (subgroup and timestamp aside). */
+export function measurementRolesFor(chart: ChartType): readonly ("value" | "count" | "size" | "units")[] {
+  if (VARIABLES_CHART_TYPES.includes(chart)) return ["value"];
+  if (chart === "p" || chart === "np") return ["count", "size"];
+  if (chart === "u") return ["count", "units"];
+  return ["count"];
+}
 
 const ZColumnName = z.string().trim().min(1, { error: "names no column" }).max(200);
 

@@ -11,7 +11,7 @@ import { INTAKE_LIMITS } from "@/shared/intake";
 import type { CsvProblem } from "@/src/io/csv/errors";
 import type { CsvRow } from "@/src/io/csv/read-table";
 import { countCell, numberCell, positiveCell } from "@/src/io/csv/row-schemas";
-import { COLUMN_ROLES, type TColumnMapping, type TColumnRole } from "./options";
+import { COLUMN_ROLE_WORDS, COLUMN_ROLES, measurementRolesFor, type TColumnMapping, type TColumnRole } from "./options";
 import { readTimestamp, type TTimestampReading } from "./timestamps";
 
 export interface TParsedRow {
@@ -28,22 +28,6 @@ export interface TParsedRow {
 
 type TRowResult = { readonly ok: true; readonly row: TParsedRow } | { readonly ok: false; readonly problems: CsvProblem[] };
 
-/** Roles each chart needs; every other measurement role is refused (subgroup and timestamp aside). */
-function neededRoles(chart: ChartType): readonly TColumnRole[] {
-  if (VARIABLES_CHART_TYPES.includes(chart)) return ["value"];
-  if (chart === "p" || chart === "np") return ["count", "size"];
-  if (chart === "u") return ["count", "units"];
-  return ["count"];
-}
-
-const ROLE_WORDS: Record<TColumnRole, string> = {
-  timestamp: "timestamp",
-  subgroup: "subgroup id",
-  value: "measured value",
-  count: "count (defectives or defects)",
-  size: "sample size",
-  units: "inspection units",
-};
 
 /** Problems of the mapping for this header and chart, reported on the header line. */
 export function checkMapping(
@@ -64,13 +48,13 @@ export function checkMapping(
       problems.push({ line: headerLine, column, message: `the ${role} column "${column}" is not in the header (${header.join(", ")})` });
     }
   }
-  const needed = neededRoles(chart);
+  const needed: readonly TColumnRole[] = measurementRolesFor(chart);
   for (const role of ["value", "count", "size", "units"] as const) {
     if (needed.includes(role) && mapping[role] === undefined) {
-      problems.push({ line: headerLine, message: `a ${chart} chart needs a ${ROLE_WORDS[role]} column: map one` });
+      problems.push({ line: headerLine, message: `a ${chart} chart needs a ${COLUMN_ROLE_WORDS[role]} column: map one` });
     }
     if (!needed.includes(role) && mapping[role] !== undefined) {
-      problems.push({ line: headerLine, column: mapping[role], message: `a ${chart} chart has no ${ROLE_WORDS[role]}: leave "${mapping[role]}" unmapped` });
+      problems.push({ line: headerLine, column: mapping[role], message: `a ${chart} chart has no ${COLUMN_ROLE_WORDS[role]}: leave "${mapping[role]}" unmapped` });
     }
   }
   if (VARIABLES_CHART_TYPES.includes(chart) && subgroupSize > 1 && mapping.subgroup === undefined) {
