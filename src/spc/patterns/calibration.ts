@@ -41,6 +41,8 @@ export interface CalibrationDesign {
   readonly monitoringLengths: readonly number[];
   readonly baseline: number;
   readonly rules: string;
+  /** Planted kinds to simulate (default: all, "none" included); rows not simulated stay at zero. */
+  readonly kinds?: readonly SimulatedKind[];
 }
 
 export const DEFAULT_CALIBRATION_DESIGN: CalibrationDesign = {
@@ -67,7 +69,7 @@ export function calibratePatterns(design: CalibrationDesign = DEFAULT_CALIBRATIO
   const matrix = Object.fromEntries(
     SIMULATED_KINDS.map((kind) => [kind, Object.fromEntries(SIMULATED_KINDS.map((reported) => [reported, 0]))]),
   ) as ConfusionMatrix;
-  for (const kind of SIMULATED_KINDS) {
+  for (const kind of design.kinds ?? SIMULATED_KINDS) {
     for (const subgroupSize of design.subgroupSizes) {
       for (const monitoring of design.monitoringLengths) {
         for (const size of EFFECT_SIZES[kind]) {
@@ -92,7 +94,7 @@ export function calibratePatterns(design: CalibrationDesign = DEFAULT_CALIBRATIO
     SIMULATED_KINDS.map((kind) => {
       const row = matrix[kind];
       const total = SIMULATED_KINDS.reduce((sum, reported) => sum + row[reported], 0);
-      return [kind, row[kind] / total];
+      return [kind, total === 0 ? Number.NaN : row[kind] / total];
     }),
   ) as Record<SimulatedKind, number>;
   return { design, matrix, accuracy };

