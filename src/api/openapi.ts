@@ -53,7 +53,9 @@ function buildDocument() {
       },
     });
   }
-  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+  // Wrapped as definitions: a bare zod 4 schema has its own `type` field, which the generator would misread.
+  const related = API_ROUTES.flatMap((route) => route.relatedSchemas ?? []).map((schema) => ({ type: "schema" as const, schema }));
+  return new OpenApiGeneratorV31([...registry.definitions, ...related]).generateDocument({
     openapi: "3.1.0",
     info: {
       title: "Assignable API",

@@ -24,6 +24,11 @@ export interface TApiRoute {
     /** Media type of the answer when it is not JSON (e.g. "application/x-ndjson", "text/csv"). */
     readonly mediaType?: string;
   };
+  /**
+   * Schemas the route uses where OpenAPI cannot point at them (JSON inside a query parameter); the
+   * document lists them in its components so the description can name them.
+   */
+  readonly relatedSchemas?: readonly z.ZodType[];
   /** Error statuses this route can answer with, besides 403 (not local) and 500 (a bug). */
   readonly errors: readonly number[];
 }

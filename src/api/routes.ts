@@ -15,6 +15,8 @@ import {
   ZTimeRangeQuery,
 } from "@/shared/api";
 import { INTAKE_LIMITS, ZEventInput, ZSubgroupsPost } from "@/shared/intake";
+import { ZImportOptions } from "@/src/imports/options";
+import { MAX_IMPORT_BYTES } from "@/src/imports/upload";
 import { defineApiRoute, type TApiRoute } from "./route-contract";
 
 /** Statuses of a route that reads a JSON body: not JSON, too large, wrong media type, invalid. */
@@ -92,6 +94,42 @@ export const listEventsRoute = defineApiRoute({
   errors: [404, 422],
 });
 
+export const postImportRoute = defineApiRoute({
+  method: "post",
+  path: "/characteristics/{id}/imports",
+  tag: "Characteristics",
+  summary: "Import a CSV file of measurements, streaming progress",
+  description:
+    `The CSV file is the raw body (at most ${MAX_IMPORT_BYTES / 1024 / 1024} MiB); \`options\` in the query is the ` +
+    `column mapping and choices as JSON (schema ImportOptions). Path, options and characteristic are checked ` +
+    `before the upload is read. The answer streams one JSON object per line: \`{"type":"progress",...}\` lines, ` +
+    `then one \`{"type":"result","result":{...}}\` or \`{"type":"error","status":...,"error":{...}}\` (the Error shape).`,
+  params: ZIdParams,
+  query: z.object({
+    options: z.string().meta({ description: "ImportOptions as JSON (URL-encoded).", example: '{"mapping":{...},"fileName":"week-48.csv"}' }),
+  }),
+  relatedSchemas: [ZImportOptions.meta({ id: "ImportOptions" })],
+  body: z.string().meta({ description: "The CSV file." }),
+  bodyMediaType: "text/csv",
+  answer: {
+    status: 200,
+    description: "Newline-delimited JSON: progress lines, then the result or an error.",
+    schema: z.string(),
+    mediaType: "application/x-ndjson",
+  },
+  errors: [404, 413, 422],
+});
+
+export const getRejectedRowsRoute = defineApiRoute({
+  method: "get",
+  path: "/characteristics/{id}/imports/{batchId}/rejected",
+  tag: "Characteristics",
+  summary: "The rows a valid-rows-only import rejected, as CSV with a line and a reason",
+  params: ZIdParams.extend({ batchId: ZIdParams.shape.id.meta({ description: "Import batch id", example: "1" }) }),
+  answer: { status: 200, description: "The rejected rows.", schema: z.string(), mediaType: "text/csv" },
+  errors: [404, 422],
+});
+
 export const openApiRoute = defineApiRoute({
   method: "get",
   path: "/openapi.json",
@@ -112,5 +150,7 @@ export const API_ROUTES: readonly TApiRoute[] = [
   listSignalsRoute,
   postEventRoute,
   listEventsRoute,
+  postImportRoute,
+  getRejectedRowsRoute,
   openApiRoute,
 ];
