@@ -54,10 +54,18 @@ const WITHIN_BITS = zoneTable((zone, withinUnknown) => (zone >= 2 && zone <= 4 &
 const DIRECTION_BITS = Int32Array.from([0, 1, 1 << LOWER]);
 
 const setBits = (mask: number): number => (mask === 0 ? 0 : (mask & 1) + setBits(mask >>> 1));
-/** 1 when the newest of the last 3 points (bit 0) is beyond 2σ and so is at least one other. */
-const TWO_OF_THREE = Uint8Array.from({ length: 8 }, (_, mask) => ((mask & 1) === 1 && setBits(mask) >= 2 ? 1 : 0));
-/** 1 when the newest of the last 5 points is beyond 1σ and so are at least 3 others. */
-const FOUR_OF_FIVE = Uint8Array.from({ length: 32 }, (_, mask) => ((mask & 1) === 1 && setBits(mask) >= 4 ? 1 : 0));
+/**
+ * The k-of-m tests of one side in one lookup, indexed by (last 3 beyond-2σ bits) | (last 5 beyond-1σ bits)
+ * << 3: bit 0 when the newest point is beyond 2σ and so is at least one other of the last 3 (2 of 3);
+ * bit 1 when the newest is beyond 1σ and so are at least 3 others of the last 5 (4 of 5).
+ */
+const K_OF_M = Uint8Array.from({ length: 256 }, (_, index) => {
+  const beyondTwo = index & 0x7;
+  const beyondOne = index >>> 3;
+  const twoOfThree = (beyondTwo & 1) === 1 && setBits(beyondTwo) >= 2 ? 1 : 0;
+  const fourOfFive = (beyondOne & 1) === 1 && setBits(beyondOne) >= 4 ? 2 : 0;
+  return twoOfThree | fourOfFive;
+});
 
 export function ruleMask(rules: readonly RuleId[]): number {
   let mask = 0;
@@ -161,8 +169,7 @@ export class RuleScanner {
     const beyondTwoBits = BEYOND_TWO_BITS;
     const withinBits = WITHIN_BITS;
     const directionBits = DIRECTION_BITS;
-    const twoOfThree = TWO_OF_THREE;
-    const fourOfFive = FOUR_OF_FIVE;
+    const kOfM = K_OF_M;
     const history = HISTORY;
     const shiftedPair = SHIFTED_PAIR;
     const runRules = (rules & RUN_RULES) !== 0;
@@ -198,7 +205,8 @@ export class RuleScanner {
       const deviation = sigma[position]!;
       if (deviation < 0) throw new SpcInputError(`${chart}: sigma at point ${index} is negative (${deviation})`, index);
       // Effective zone boundaries (the branches follow sigma and the floor, not the noise). Without a
-      // sigma no point is beyond any boundary; a lower boundary under the floor is passed by every point.
+      // sigma no point is beyond any boundary and none is within 1σ; a lower boundary under the floor is
+      // passed by every point, and a point below the centre there is not within 1σ.
       const zonesKnown = deviation >= 0;
       const lowerOne = center - deviation;
       const lowerTwo = center - 2 * deviation;
@@ -238,8 +246,10 @@ export class RuleScanner {
       ) {
         patterns |= 16; // PATTERN_THIRTEEN_ALTERNATIONS
       }
-      if ((twoOfThree[beyondTwo & 0x7]! | twoOfThree[(beyondTwo >>> 15) & 0x7]!) !== 0) patterns |= 32; // PATTERN_TWO_OF_THREE
-      if ((fourOfFive[beyondOne & 0x1f]! | fourOfFive[beyondOneBelow & 0x1f]!) !== 0) patterns |= 64; // PATTERN_FOUR_OF_FIVE
+      // Bit 0: 2 of 3 beyond 2σ (PATTERN_TWO_OF_THREE = 32); bit 1: 4 of 5 beyond 1σ (PATTERN_FOUR_OF_FIVE = 64).
+      const kOfMPatterns =
+        kOfM[(beyondTwo & 0x7) | ((beyondOne & 0x1f) << 3)]! | kOfM[((beyondTwo >>> 15) & 0x7) | ((beyondOneBelow & 0x1f) << 3)]!;
+      patterns |= kOfMPatterns << 5;
       if (within === history && (sides & history) !== 0 && below !== 0) patterns |= 128; // PATTERN_FIFTEEN_WITHIN
       if (((beyondOne | beyondOneBelow) & 0xff) === 0xff && (sides & 0xff) !== 0 && (below & 0xff) !== 0) {
         patterns |= 256; // PATTERN_EIGHT_BEYOND
