@@ -53,7 +53,7 @@ describe("readPatterns on published data", () => {
   // Expected reading: no pattern. The two points do not avoid the centre together with the others
   // (9 of the 16 points from index 14 on lie beyond 1σ, binomial upper tail 0.037, not below 0.001),
   // the scatter from index 14 on is not significantly larger than before it (mean z² 3.6 against 2.0,
-  // F(16, 14) upper tail 0.13, not below 0.01), and neither
+  // F(16, 14) upper tail 0.13, not below 0.05), and neither
   // point is isolated: their neighbours scatter about 1.6–1.8 times as much as the binomial model says
   // (the counts are overdispersed), so 3.2σ and 4.1σ from the neighbours' level is within what that
   // scatter produces. The rule-1 signals stand, each to be investigated on its own, as Montgomery did.
