@@ -1,3 +1,4 @@
+import Link from "next/link";
 import type { CharacteristicSummary } from "../characteristics/summary";
 import { SAFETY_CAUTION } from "../../shared/constants";
 import { formatTime, formatValue } from "./format";
@@ -60,6 +61,11 @@ export function CharacteristicCard({ characteristic }: { characteristic: Charact
           <figcaption>{trendDescription(characteristic)}</figcaption>
         </figure>
       )}
+      <p className="card-actions">
+        <Link href={`/characteristics/${characteristic.id}/import`}>
+          Import readings<span className="visually-hidden"> for {characteristic.name}</span>
+        </Link>
+      </p>
       {characteristic.safetyRelated && (
         <p className="caution" id={cautionId}>
           {SAFETY_CAUTION}

@@ -46,6 +46,9 @@ describe("characteristics overview", () => {
       const line = card.locator(".sparkline-plot svg path.recharts-line-curve");
       expect(await line.count(), `trend line for ${name}`).toBe(1);
       expect(await line.getAttribute("d")).toMatch(/^M/);
+      const importPath = await card.getByRole("link", { name: /^Import readings for / }).getAttribute("href");
+      expect(importPath).toMatch(/^\/characteristics\/\d+\/import$/);
+      expect((await fetch(`${app!.baseUrl}${importPath}`)).status, `no dead link for ${name}`).toBe(200);
     }
   });
 
