@@ -1,0 +1,425 @@
+/**
+ * Loads what the chart draws for a range of a characteristic's history: per plotted statistic, at most
+ * about `maxPoints` points (every signal point, every point where the limits step and every corrected
+ * point kept; the rest reduced to each bucket's extremes by ./decimate.ts), each with the limits of the
+ * version in force there; the limit segments; the signals and process events in the range.
+ *
+ * Speed: a history may hold a million points, so the full range is read as bare columns of the cached
+ * per-subgroup summaries (mean, spread, count, size, EWMA and CUSUM state; no measurement is read) into
+ * typed arrays through a raw better-sqlite3 connection with prepared statements, and only the kept points
+ * are then read whole. Their values and limits come from `summarySeries` (src/limits/series.ts), the
+ * engine's formulas applied to the cached summaries, one point at a time with the point before it, so a
+ * drawn value and limit are exactly those live detection judged. All reads run in one read transaction:
+ * one consistent snapshot even while subgroups arrive.
+ */
+import type Database from "better-sqlite3";
+import type { ChartType, RuleId, StatisticKey } from "@/shared/constants";
+import { chartTypeOf } from "@/src/characteristics/setup";
+import { AppError } from "@/src/errors";
+import { chartParametersOf, limitSegments, summarySeries, type TSegment, type TSummary } from "@/src/limits";
+import type { TLimitSetParameters } from "@/src/limits/parameters";
+import { RULE_DEFINITIONS } from "@/src/spc/rules";
+import type { StatisticSeries } from "@/src/spc/types";
+import { cachedColumn, type TColumn } from "./column-cache";
+import { decimate } from "./decimate";
+import { originalStatistic } from "./originals";
+import {
+  DEFAULT_MAX_POINTS,
+  STATISTIC_LABELS,
+  type TChartEvent,
+  type TChartPoint,
+  type TChartSignal,
+  type TChartView,
+  type TLimitSegment,
+  type TPointCorrection,
+  type TPointLimits,
+  type TStatisticView,
+} from "./view";
+
+export interface TChartViewOptions {
+  readonly fromSequence?: number;
+  readonly toSequence?: number;
+  readonly maxPoints?: number;
+}
+
+/** The plotted statistics of each chart, in the order summarySeries returns them. */
+const STATISTICS_OF: Record<ChartType, readonly StatisticKey[]> = {
+  imr: ["x", "mr"],
+  "xbar-r": ["xbar", "r"],
+  "xbar-s": ["xbar", "s"],
+  p: ["p"],
+  np: ["np"],
+  c: ["c"],
+  u: ["u"],
+  ewma: ["ewma"],
+  cusum: ["cusum-upper", "cusum-lower"],
+};
+
+interface TLimitSetRow extends TLimitSetParameters {
+  readonly id: number;
+  readonly version: number;
+  readonly appliesFrom: number;
+}
+
+interface TSummaryRow extends TSummary {
+  readonly sequence: number;
+  readonly timestamp: string;
+  readonly id: number;
+}
+
+const SQL = {
+  characteristic: 'SELECT "id", "chartType", "unit", "processId" FROM "Characteristic" WHERE "id" = ?',
+  // Two scalar subqueries: SQLite answers a lone MIN or MAX from the index in O(log n), but scans for both at once.
+  history:
+    'SELECT (SELECT MIN("sequence") FROM "Subgroup" WHERE "characteristicId" = ?) AS "first", ' +
+    '(SELECT MAX("sequence") FROM "Subgroup" WHERE "characteristicId" = ?) AS "last"',
+  limitSets:
+    'SELECT "id", "version", "center", "sigma", "subgroupSize", "ewmaLambda", "ewmaWidth", "cusumK", "cusumH", ' +
+    '"baselineStart", "baselineEnd", "baselineUsed", "appliesFrom" FROM "LimitSet" WHERE "characteristicId" = ? ORDER BY "version"',
+  // The kept sequences go in as one JSON array: one statement, whatever their number.
+  summaries:
+    'SELECT "id", "sequence", "timestamp", "mean", "spread", "count", "size", "ewma", "cusumUpper", "cusumLower" FROM "Subgroup" ' +
+    'WHERE "characteristicId" = ? AND "sequence" IN (SELECT "value" FROM json_each(?))',
+  signals:
+    'SELECT s."id", s."rule", s."statistic", s."startSequence", s."endSequence", s."firing", s."side", s."pattern", ' +
+    's."status", s."detectedAt", l."version" AS "limitSetVersion" FROM "Signal" s JOIN "LimitSet" l ON l."id" = s."limitSetId" ' +
+    'WHERE s."characteristicId" = ? AND s."endSequence" >= ? AND s."startSequence" <= ? ORDER BY s."startSequence", s."id"',
+  timestampAt: 'SELECT "timestamp" FROM "Subgroup" WHERE "characteristicId" = ? AND "sequence" = ?',
+  // CROSS JOIN: the corrections are few, the subgroups of a range may be a million; walk the corrections.
+  corrections:
+    'SELECT s."sequence", c."field", m."position", c."originalValue", c."correctedValue", c."reason", c."correctedBy", c."correctedAt" ' +
+    'FROM "Correction" c CROSS JOIN "Subgroup" s ON s."id" = c."subgroupId" LEFT JOIN "Measurement" m ON m."id" = c."measurementId" ' +
+    'WHERE s."characteristicId" = ? AND s."sequence" BETWEEN ? AND ? ORDER BY c."id"',
+  measurements: 'SELECT "value" FROM "Measurement" WHERE "subgroupId" = ? ORDER BY "position"',
+  events:
+    'SELECT "id", "occurredAt", "kind", "causeCategory", "description", "value", "unit" FROM "ProcessEvent" ' +
+    'WHERE "processId" = ? AND "occurredAt" >= ? AND "occurredAt" <= ? ORDER BY "occurredAt", "id"',
+  // Timestamps never go backwards along the sequence, so the first by time is the first by sequence.
+  eventPosition: 'SELECT "sequence" FROM "Subgroup" WHERE "characteristicId" = ? AND "timestamp" >= ? ORDER BY "timestamp" LIMIT 1',
+} as const;
+
+const STORED_UTC = /^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}\+00:00$/;
+
+/** Stored times (Prisma writes "…+00:00") as ISO 8601 with Z, the form every answer uses. */
+function isoTime(stored: string | number): string {
+  return typeof stored === "string" && STORED_UTC.test(stored) ? `${stored.slice(0, -6)}Z` : new Date(stored).toISOString();
+}
+
+/** The plotted values of every statistic over [from, to], from bare columns (no limits needed). */
+function readStatistics(
+  database: Database.Database,
+  chart: ChartType,
+  characteristicId: number,
+  history: { first: number; last: number },
+  range: { from: number; to: number },
+  segmentStarts: ReadonlySet<number>,
+): Float64Array[] {
+  const { from } = range;
+  const column = (name: TColumn) => cachedColumn(database, name, characteristicId, history, range);
+  switch (chart) {
+    case "imr": {
+      // One point before the range gives the first moving range; a segment's first moving range is undefined.
+      const before = from > history.first ? cachedColumn(database, "mean", characteristicId, history, { from: from - 1, to: from - 1 })[0]! : Number.NaN;
+      const values = column("mean");
+      const ranges = values.map((value, index) =>
+        segmentStarts.has(from + index) ? Number.NaN : Math.abs(value - (index === 0 ? before : values[index - 1]!)),
+      );
+      return [values, ranges];
+    }
+    case "xbar-r":
+    case "xbar-s":
+      return [column("mean"), column("spread")];
+    case "p":
+    case "u": {
+      const counts = column("count");
+      const sizes = column("size");
+      return [counts.map((count, index) => count / sizes[index]!)];
+    }
+    case "np":
+    case "c":
+      return [column("count")];
+    case "ewma":
+      return [column("ewma")];
+    case "cusum":
+      return [column("cusumUpper"), column("cusumLower")];
+  }
+}
+
+function limitsAt(series: StatisticSeries): TPointLimits {
+  const center = series.center;
+  const ucl = series.ucl[0]!;
+  const lcl = series.lcl[0]!;
+  const sigma = series.sigma[0]!;
+  // Warning limits at 2σ, inside the action limits where those are truncated at a floor or ceiling.
+  const warning = Number.isNaN(sigma) ? null : 2 * sigma;
+  return {
+    center,
+    ucl,
+    lcl,
+    upperWarning: warning === null ? null : Math.min(ucl, center + warning),
+    lowerWarning: warning === null ? null : Math.max(lcl, center - warning),
+  };
+}
+
+function sameLimits(first: TPointLimits, second: TPointLimits): boolean {
+  return (
+    first.center === second.center &&
+    first.ucl === second.ucl &&
+    first.lcl === second.lcl &&
+    first.upperWarning === second.upperWarning &&
+    first.lowerWarning === second.lowerWarning
+  );
+}
+
+/** The summary rows of the given sequences, by sequence. */
+function readSummaries(database: Database.Database, characteristicId: number, sequences: readonly number[]): Map<number, TSummaryRow> {
+  const rows = database.prepare(SQL.summaries).all(characteristicId, JSON.stringify(sequences)) as TSummaryRow[];
+  return new Map(rows.map((row) => [row.sequence, row]));
+}
+
+/**
+ * The limits of every statistic at one point, by the engine's formulas (summarySeries). Limits depend on
+ * the version, on the point's sample size (p, u) and, for the EWMA, on its position in the segment, never
+ * on earlier values; so they are computed once per distinct case, and the slice is started at the point
+ * itself (its own row standing in for the previous state, which moves only the plotted value: that is
+ * taken from the stored columns).
+ */
+function limitCalculator(chart: ChartType) {
+  const known = new Map<string, TPointLimits[]>();
+  return (segment: TSegment<TLimitSetRow>, sequence: number, row: TSummaryRow): TPointLimits[] => {
+    const firstIndex = sequence - segment.from;
+    const key = `${segment.limitSet.id}|${chart === "p" || chart === "u" ? row.size : ""}|${chart === "ewma" ? firstIndex : ""}`;
+    let limits = known.get(key);
+    if (limits === undefined) {
+      const parameters = chartParametersOf(chart, segment.limitSet);
+      limits = summarySeries(chart, parameters, [row], { firstIndex, previous: row }).map(limitsAt);
+      known.set(key, limits);
+    }
+    return limits;
+  };
+}
+
+interface TSignalRow {
+  id: number;
+  rule: RuleId;
+  statistic: StatisticKey;
+  startSequence: number;
+  endSequence: number;
+  firing: string;
+  side: "above" | "below" | null;
+  pattern: TChartSignal["pattern"];
+  status: string;
+  detectedAt: string | number;
+  limitSetVersion: number;
+}
+
+interface TCorrectionRow {
+  sequence: number;
+  field: string;
+  position: number | null;
+  originalValue: number;
+  correctedValue: number;
+  reason: string;
+  correctedBy: string;
+  correctedAt: string | number;
+}
+
+export function loadChartView(database: Database.Database, characteristicId: number, options: TChartViewOptions = {}): TChartView {
+  const maxPoints = options.maxPoints ?? DEFAULT_MAX_POINTS;
+  return database.transaction(() => {
+    const characteristic = database.prepare(SQL.characteristic).get(characteristicId) as
+      | { id: number; chartType: string; unit: string; processId: number }
+      | undefined;
+    if (characteristic === undefined) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
+    const chart = chartTypeOf(characteristic.chartType);
+    const keys = STATISTICS_OF[chart];
+    const empty: TChartView = {
+      characteristicId,
+      chartType: chart,
+      unit: characteristic.unit,
+      history: null,
+      range: null,
+      maxPoints,
+      statistics: keys.map((key) => ({ key, label: STATISTIC_LABELS[key], points: [], segments: [], pointsInRange: 0, decimated: false })),
+      signals: [],
+      events: [],
+    };
+    const history = database.prepare(SQL.history).get(characteristicId, characteristicId) as { first: number | null; last: number | null };
+    if (history.first === null || history.last === null) return empty;
+    const { first, last } = history as { first: number; last: number };
+    const from = Math.max(first, options.fromSequence ?? first);
+    const to = Math.min(last, options.toSequence ?? last);
+    if (from > to) return { ...empty, history: { first, last } };
+
+    const limitSets = database.prepare(SQL.limitSets).all(characteristicId) as TLimitSetRow[];
+    const segments = limitSegments(limitSets);
+    const segmentAtSequence = (sequence: number): TSegment<TLimitSetRow> | undefined =>
+      segments.find((segment) => segment.from <= sequence && sequence < segment.to);
+    const segmentStarts = new Set(segments.map((segment) => segment.from));
+
+    const signalRows = database.prepare(SQL.signals).all(characteristicId, from, to) as TSignalRow[];
+    // Rules firing at each point, per statistic: a panel marks and keeps its own statistic's signal points.
+    const firedAt = new Map<StatisticKey, Map<number, RuleId[]>>(keys.map((key) => [key, new Map()]));
+    for (const signal of signalRows) {
+      const fired = firedAt.get(signal.statistic);
+      if (fired === undefined) continue;
+      for (const sequence of JSON.parse(signal.firing) as number[]) {
+        if (sequence >= from && sequence <= to) fired.set(sequence, [...(fired.get(sequence) ?? []), signal.rule]);
+      }
+    }
+    const correctionRows = database.prepare(SQL.corrections).all(characteristicId, from, to) as TCorrectionRow[];
+    const correctionsAt = new Map<number, TCorrectionRow[]>();
+    for (const row of correctionRows) correctionsAt.set(row.sequence, [...(correctionsAt.get(row.sequence) ?? []), row]);
+
+    // Points every panel keeps whatever their value: both sides of every limit step, and corrected points.
+    const keepEverywhere = new Set<number>(correctionsAt.keys());
+    for (const start of segmentStarts) {
+      for (const sequence of [start - 1, start]) if (sequence >= from && sequence <= to) keepEverywhere.add(sequence);
+    }
+    const values = readStatistics(database, chart, characteristicId, { first, last }, { from, to }, segmentStarts);
+    const decimations = keys.map((key, statisticIndex) =>
+      decimate(values[statisticIndex]!, {
+        maxPoints,
+        keep: [...keepEverywhere, ...firedAt.get(key)!.keys()].map((sequence) => sequence - from),
+      }),
+    );
+    const keptSequences = [...new Set(decimations.flatMap((decimation) => decimation.indices))]
+      .sort((a, b) => a - b)
+      .map((index) => index + from);
+    const summaries = readSummaries(database, characteristicId, keptSequences);
+    const limitsOf = limitCalculator(chart);
+
+    const statistics: TStatisticView[] = keys.map((key, statisticIndex) => {
+      const decimation = decimations[statisticIndex]!;
+      const plotted = values[statisticIndex]!;
+      const bucketOf = new Map<number, { from: number; to: number; min: number; max: number }>();
+      for (const bucket of decimation.buckets) {
+        if (bucket.minIndex < 0) continue;
+        const span = { from: bucket.start + from, to: bucket.end - 1 + from, min: plotted[bucket.minIndex]!, max: plotted[bucket.maxIndex]! };
+        bucketOf.set(bucket.minIndex, span);
+        bucketOf.set(bucket.maxIndex, span);
+      }
+      const points: TChartPoint[] = decimation.indices.map((index) => {
+        const sequence = index + from;
+        const row = summaries.get(sequence)!;
+        const segment = segmentAtSequence(sequence);
+        const value = plotted[index]!;
+        const corrections = correctionsAt.get(sequence) ?? [];
+        return {
+          sequence,
+          timestamp: isoTime(row.timestamp),
+          value: Number.isNaN(value) ? null : value,
+          version: segment?.limitSet.version ?? null,
+          limits: segment === undefined ? null : limitsOf(segment, sequence, row)[statisticIndex]!,
+          firedRules: firedAt.get(key)!.get(sequence) ?? [],
+          bucket: bucketOf.get(index) ?? null,
+          originalValue: statisticIndex === 0 ? originalOf(database, chart, row, corrections) : null,
+          corrections: corrections.map(toPointCorrection),
+        };
+      });
+      return {
+        key,
+        label: STATISTIC_LABELS[key],
+        points,
+        segments: segmentsIn(segments, points, from, to),
+        pointsInRange: to - from + 1,
+        decimated: decimation.buckets.length > 0,
+      };
+    });
+
+    const timestampOf = (sequence: number): string | null => {
+      const row = summaries.get(sequence) ?? (database.prepare(SQL.timestampAt).get(characteristicId, sequence) as { timestamp: string } | undefined);
+      return row === undefined ? null : isoTime(row.timestamp);
+    };
+    const signals: TChartSignal[] = signalRows.map((row) => {
+      const firing = JSON.parse(row.firing) as number[];
+      const lastFiring = firing.at(-1);
+      return {
+        id: row.id,
+        rule: row.rule,
+        ruleText: RULE_DEFINITIONS[row.rule].summary,
+        statistic: row.statistic,
+        startSequence: row.startSequence,
+        endSequence: row.endSequence,
+        firingCount: firing.length,
+        side: row.side,
+        pattern: row.pattern,
+        status: row.status,
+        limitSetVersion: row.limitSetVersion,
+        detectedAt: isoTime(row.detectedAt),
+        lastFiringAt: lastFiring === undefined ? null : timestampOf(lastFiring),
+      };
+    });
+
+    return {
+      ...empty,
+      history: { first, last },
+      range: { from, to },
+      statistics,
+      signals,
+      events: eventsIn(database, characteristic, summaries.get(from)!.timestamp, summaries.get(to)!.timestamp),
+    };
+  })();
+}
+
+function originalOf(database: Database.Database, chart: ChartType, row: TSummaryRow, corrections: readonly TCorrectionRow[]): number | null {
+  if (corrections.length === 0) return null;
+  const values = database.prepare(SQL.measurements).pluck(true).all(row.id) as number[];
+  return originalStatistic(
+    chart,
+    { values, count: row.count, size: row.size },
+    corrections.map((correction) => ({ field: correction.field, position: correction.position, recorded: correction.originalValue })),
+  );
+}
+
+function toPointCorrection(row: TCorrectionRow): TPointCorrection {
+  return {
+    field: row.field,
+    position: row.position,
+    recorded: row.originalValue,
+    corrected: row.correctedValue,
+    reason: row.reason,
+    correctedBy: row.correctedBy,
+    correctedAt: isoTime(row.correctedAt),
+  };
+}
+
+/**
+ * Each limit version over the part of [from, to] it applies to; its limits stated once where every point
+ * of it has the same (the kept points include each segment's first point in the range).
+ */
+function segmentsIn(segments: readonly TSegment<TLimitSetRow>[], points: readonly TChartPoint[], from: number, to: number): TLimitSegment[] {
+  return segments
+    .filter((segment) => segment.from <= to && segment.to > from)
+    .map((segment) => {
+      const fromSequence = Math.max(segment.from, from);
+      const toSequence = Math.min(segment.to - 1, to);
+      const inside = points.filter((point) => point.sequence >= fromSequence && point.sequence <= toSequence && point.limits !== null);
+      const firstLimits = inside[0]?.limits ?? null;
+      const constant = firstLimits !== null && inside.every((point) => sameLimits(point.limits!, firstLimits));
+      return {
+        version: segment.limitSet.version,
+        limitSetId: segment.limitSet.id,
+        fromSequence,
+        toSequence,
+        constantLimits: constant ? firstLimits : null,
+      };
+    });
+}
+
+function eventsIn(
+  database: Database.Database,
+  characteristic: { id: number; processId: number },
+  fromTimestamp: string,
+  toTimestamp: string,
+): TChartEvent[] {
+  type TEventRow = Omit<TChartEvent, "occurredAt" | "position"> & { occurredAt: string | number };
+  const rows = database.prepare(SQL.events).all(characteristic.processId, fromTimestamp, toTimestamp) as TEventRow[];
+  const position = database.prepare(SQL.eventPosition).pluck(true);
+  return rows.map((row) => ({
+    ...row,
+    occurredAt: isoTime(row.occurredAt),
+    // The range's last point is at or after every event read, so a subgroup is always found.
+    position: (position.get(characteristic.id, row.occurredAt) as number) - 0.5,
+  }));
+}
