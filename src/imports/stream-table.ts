@@ -53,28 +53,34 @@ export async function streamCsvRows(source: AsyncIterable<Uint8Array>, handlers:
   let rowsRead = 0;
   let line = 1;
 
-  // Decoded text, BOM removed; stops (with a problem) at the first byte sequence that is not UTF-8.
+  // Decoded text, BOM removed; stops (with a problem naming its line) at the first bytes that are not UTF-8.
   async function* text(): AsyncGenerator<string> {
     const decoder = new TextDecoder("utf-8", { fatal: true, ignoreBOM: true });
     let first = true;
-    try {
-      for await (const chunk of source) {
-        hash.update(chunk);
-        bytesRead += chunk.byteLength;
-        let decoded = decoder.decode(chunk, { stream: true });
-        if (first && decoded.length > 0) {
-          if (decoded.startsWith(BYTE_ORDER_MARK)) decoded = decoded.slice(1);
-          first = false;
-        }
-        if (decoded.length > 0) yield decoded;
-        handlers.onProgress?.({ bytesRead, rowsRead });
+    let linesDecoded = 1;
+    for await (const chunk of source) {
+      hash.update(chunk);
+      bytesRead += chunk.byteLength;
+      let decoded: string;
+      try {
+        decoded = decoder.decode(chunk, { stream: true });
+      } catch (error) {
+        if (!(error instanceof TypeError)) throw error;
+        const lossy = new TextDecoder("utf-8").decode(chunk);
+        const line = linesDecoded + countLineBreaks([lossy.slice(0, Math.max(0, lossy.indexOf("\uFFFD")))]);
+        problems.push({ line, message: "the file is not UTF-8 text from here on: save it as UTF-8 (CSV UTF-8) and import it again" });
+        return;
       }
-      const rest = decoder.decode();
-      if (rest.length > 0) yield rest;
-    } catch (error) {
-      if (!(error instanceof TypeError)) throw error;
-      problems.push({ line, message: "the file is not UTF-8 text from here on: save it as UTF-8 (CSV UTF-8) and import it again" });
+      if (first && decoded.length > 0) {
+        if (decoded.startsWith(BYTE_ORDER_MARK)) decoded = decoded.slice(1);
+        first = false;
+      }
+      linesDecoded += countLineBreaks([decoded]);
+      if (decoded.length > 0) yield decoded;
+      handlers.onProgress?.({ bytesRead, rowsRead });
     }
+    const rest = decoder.decode();
+    if (rest.length > 0) yield rest;
   }
 
   // The separator comes from the header line, so the text is read up to the first line break first.
