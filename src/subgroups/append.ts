@@ -141,24 +141,19 @@ interface TDetection {
   readonly firings: Firing[];
 }
 
-/** Evaluates the new points (summaries `fresh`, sequences from `firstSequence`) in their segment. */
-async function detect(
-  transaction: Prisma.TransactionClient,
-  characteristicId: number,
+/**
+ * Evaluates the new points (summaries `fresh`, sequences from `firstSequence`) in their segment, from
+ * `recent`: the last RULE_TAIL_LENGTH + 1 stored points, oldest first (the tail and the state before it).
+ */
+function detect(
   chart: ReturnType<typeof chartTypeOf>,
   segment: TSegment<{ id: number; version: number; appliesFrom: number } & Parameters<typeof chartParametersOf>[1]>,
   rules: readonly RuleId[],
+  recent: readonly (TSummary & { sequence: number })[],
   fresh: readonly TSummary[],
   firstSequence: number,
-): Promise<TDetection> {
-  // The tail: up to RULE_TAIL_LENGTH points before the new ones, plus one more for its state.
-  const earlier = (
-    await transaction.subgroup.findMany({
-      where: { characteristicId, sequence: { gte: Math.max(segment.from, firstSequence - RULE_TAIL_LENGTH - 1), lt: firstSequence } },
-      orderBy: { sequence: "desc" },
-      select: SUMMARY_SELECT,
-    })
-  ).reverse();
+): TDetection {
+  const earlier = recent.filter((row) => row.sequence >= segment.from);
   const hasPrevious = earlier.length > 0 && earlier[0]!.sequence > segment.from;
   const tail = hasPrevious ? earlier.slice(1) : earlier;
   const firstIndex = (tail[0]?.sequence ?? firstSequence) - segment.from;
@@ -182,16 +177,23 @@ export async function appendSubgroups(
   inputs: readonly unknown[],
   options: TAppendOptions,
 ): Promise<TAppendResult> {
-  const characteristic = await db.characteristic.findUnique({
-    where: { id: characteristicId },
-    select: { chartType: true, subgroupSize: true, ruleSet: true },
-  });
-  if (characteristic === null) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
-  const chart = chartTypeOf(characteristic.chartType);
-  const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
-  const rules = resolveRuleSet(characteristic.ruleSet);
-
   return db.$transaction(async (transaction) => {
+    // One read for everything the call needs: settings, limit versions, and the last stored points
+    // (the time-order check and the tail of live detection).
+    const characteristic = await transaction.characteristic.findUnique({
+      where: { id: characteristicId },
+      select: {
+        chartType: true,
+        subgroupSize: true,
+        ruleSet: true,
+        limitSets: true,
+        subgroups: { orderBy: { sequence: "desc" }, take: RULE_TAIL_LENGTH + 1, select: { ...SUMMARY_SELECT, timestamp: true } },
+      },
+    });
+    if (characteristic === null) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
+    const chart = chartTypeOf(characteristic.chartType);
+    const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
+    const rules = resolveRuleSet(characteristic.ruleSet);
     const known = options.sourceKeys === undefined
       ? new Set<string>()
       : new Set(
@@ -206,22 +208,18 @@ export async function appendSubgroups(
       .map((input, index) => ({ input, key: options.sourceKeys?.[index] }))
       .filter(({ key }) => key === undefined || !known.has(key));
     const alreadyPresent = parsed.length - chosen.length;
-    const last = await transaction.subgroup.findFirst({
-      where: { characteristicId },
-      orderBy: { sequence: "desc" },
-      select: { sequence: true, timestamp: true },
-    });
+    const recent = characteristic.subgroups.reverse();
+    const last = recent.at(-1) ?? null;
     checkTimeOrder(chosen.map(({ input }) => input), last);
     const firstSequence = (last?.sequence ?? -1) + 1;
     const summaries = chosen.map(({ input }) => ({ ...summarize(chart, input), ewma: null, cusumUpper: null, cusumLower: null }));
 
-    const limitSets = await transaction.limitSet.findMany({ where: { characteristicId } });
-    const segment = limitSegments(limitSets).find((candidate) => candidate.from <= firstSequence && candidate.to === Infinity);
+    const segment = limitSegments(characteristic.limitSets).find((candidate) => candidate.from <= firstSequence && candidate.to === Infinity);
     const notes: string[] = [];
     let detection: TDetection | undefined;
     if (chosen.length === 0) notes.push("every subgroup was already stored; nothing was added");
     else if (segment === undefined) notes.push("no limits yet: the subgroups are stored and no rule was evaluated");
-    else detection = await detect(transaction, characteristicId, chart, segment, rules, summaries, firstSequence);
+    else detection = detect(chart, segment, rules, recent, summaries, firstSequence);
 
     const state = (key: string, position: number) =>
       detection?.statistics.find((series) => series.key === key)?.points[detection.firstNew + position] ?? null;
