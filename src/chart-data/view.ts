@@ -139,16 +139,27 @@ export const ZChartView = z.object({
 });
 export type TChartView = z.infer<typeof ZChartView>;
 
-/** The query of the chart-data route and the options of `loadChartView`. */
+const ZSequenceText = z
+  .string()
+  .regex(/^(0|[1-9]\d*)$/, { error: "must be a whole number (a subgroup sequence)" })
+  .transform(Number)
+  .refine(Number.isSafeInteger, { error: "is too large" });
+
+/** The query of the chart-data route (sequences inclusive) and the options of `loadChartView`. */
 export const ZChartRangeQuery = z
   .object({
-    from: z.coerce.number().int().nonnegative().optional(),
-    to: z.coerce.number().int().nonnegative().optional(),
-    maxPoints: z.coerce.number().int().min(10).max(LARGEST_MAX_POINTS).default(DEFAULT_MAX_POINTS),
+    from: ZSequenceText.optional().meta({ description: "First subgroup sequence shown (inclusive)", example: "0" }),
+    to: ZSequenceText.optional().meta({ description: "Last subgroup sequence shown (inclusive)", example: "999" }),
+    maxPoints: z
+      .string()
+      .regex(/^[1-9]\d*$/, { error: "must be a positive whole number" })
+      .transform(Number)
+      .refine((points) => points >= 10 && points <= LARGEST_MAX_POINTS, { error: `must be between 10 and ${LARGEST_MAX_POINTS}` })
+      .optional()
+      .meta({ description: `Points per statistic before signal points are added (default ${DEFAULT_MAX_POINTS})`, example: "2000" }),
   })
   .strict()
   .refine((query) => query.from === undefined || query.to === undefined || query.from <= query.to, {
     path: ["to"],
     error: "must not be before from",
   });
-export type TChartRangeQuery = z.infer<typeof ZChartRangeQuery>;
