@@ -2,7 +2,7 @@
 // re-evaluation), corrections (original kept with who, when and why; summaries updated; signals
 // re-evaluated and recorded) and the process event log, on a real SQLite file.
 import { beforeAll, describe, expect, test } from "vitest";
-import { createCharacteristic, getCharacteristic } from "@/src/characteristics/setup";
+import { createCharacteristic, getCharacteristic, updateCharacteristic } from "@/src/characteristics/setup";
 import type { PrismaClient } from "@/src/db/connect";
 import { eventsFor, recordEvent } from "@/src/events";
 import { limitSetInForce, limitSetsFor, reviseLimits } from "@/src/limits";
@@ -101,6 +101,24 @@ describe("corrections", () => {
     await correctValue(db, { subgroupId: subgroup.id, field: "count" }, { newValue: subgroup.size!, reason: "all rejected: wrong tray counted", correctedBy: "Line lead" }, NOW);
     expect((await db.subgroup.findUniqueOrThrow({ where: { id: subgroup.id } })).count).toBe(subgroup.size);
     expect((await signalsFor(db, characteristic.id)).some((signal) => signal.firing.includes(39) && signal.side === "above")).toBe(true);
+  });
+});
+
+describe("characteristic settings", () => {
+  test("a changed rule set re-evaluates the stored signals, recorded; the settings read back as saved", async () => {
+    const settings = { processId, name: "Seal width", unit: "mm", chartType: "imr" as const, subgroupSize: 1, ruleSet: "nelson", target: 10, lowerSpecLimit: 9, upperSpecLimit: 11 };
+    const characteristic = await createCharacteristic(db, settings);
+    await appendSubgroups(db, characteristic.id, seededSubgroups("imr", 80, 31, 50, 1.5), { source: "api", now: NOW });
+    await reviseLimits(db, characteristic.id, { baselineStart: 0, baselineEnd: 40, reason: "initial limits", approvedBy: "Engineer" }, NOW);
+    const withNelson = await signalsFor(db, characteristic.id);
+    const changedAt = new Date("2026-04-05T10:00:00Z");
+    const updated = await updateCharacteristic(db, characteristic.id, { ...settings, ruleSet: "we-1", description: "width of the heat seal" }, { now: changedAt, changedBy: "Quality lead" });
+    expect(updated).toMatchObject({ ruleSet: "we-1", description: "width of the heat seal", subgroupCount: 80, limitsInForce: { version: 1 }, process: { id: processId } });
+    const withRuleOne = await signalsFor(db, characteristic.id);
+    expect(withRuleOne.every((signal) => signal.rule === "we-1")).toBe(true);
+    expect(withNelson.some((signal) => signal.rule !== "nelson-1")).toBe(true);
+    const evaluation = await db.signalEvaluation.findFirstOrThrow({ where: { characteristicId: characteristic.id, trigger: "request" } });
+    expect(evaluation).toMatchObject({ reason: 'rule set changed from "nelson" to "we-1"', requestedBy: "Quality lead", at: changedAt, signalsBefore: withNelson.length, signalsAfter: withRuleOne.length });
   });
 });
 
