@@ -1,0 +1,75 @@
+"use client";
+
+import { useActionState } from "react";
+import { CAUSE_CATEGORIES, EVENT_KINDS, EVENT_KIND_LABELS } from "@/shared/constants";
+import { addEvent, type TEventFormState } from "./actions";
+
+export function EventForm({ processId, defaultTime }: { processId: number; defaultTime: string }) {
+  const [state, action, pending] = useActionState(addEvent.bind(null, processId), { ok: null } as TEventFormState);
+  const issues = state.ok === false ? state.issues : [];
+  const problemOf = (name: string) => issues.filter((issue) => issue.path === name).map((issue) => issue.message).join("; ");
+  const general = issues.filter((issue) => issue.path === "");
+  const described = (name: string) => (problemOf(name) !== "" ? { "aria-invalid": true, "aria-describedby": `${name}-error` } : {});
+  const error = (name: string, label: string) =>
+    problemOf(name) !== "" && (
+      <p className="field-error" id={`${name}-error`}>
+        {label} {problemOf(name)}
+      </p>
+    );
+  return (
+    <form action={action} className="settings-form" noValidate>
+      {state.ok === true && <p role="status">Event recorded.</p>}
+      {general.map((issue, index) => (
+        <p key={index} className="form-error" role="alert">
+          {issue.message}
+        </p>
+      ))}
+      <div className="field">
+        <label htmlFor="occurredAt">Time (UTC)</label>
+        <input id="occurredAt" name="occurredAt" type="datetime-local" defaultValue={defaultTime} {...described("occurredAt")} />
+        {error("occurredAt", "Time")}
+      </div>
+      <div className="field">
+        <label htmlFor="kind">Kind</label>
+        <select id="kind" name="kind" defaultValue="lot-change" {...described("kind")}>
+          {EVENT_KINDS.map((kind) => (
+            <option key={kind} value={kind}>
+              {EVENT_KIND_LABELS[kind]}
+            </option>
+          ))}
+        </select>
+        {error("kind", "Kind")}
+      </div>
+      <div className="field">
+        <label htmlFor="causeCategory">Cause category (optional)</label>
+        <select id="causeCategory" name="causeCategory" defaultValue="" {...described("causeCategory")}>
+          <option value="">(none)</option>
+          {CAUSE_CATEGORIES.map((category) => (
+            <option key={category} value={category}>
+              {category}
+            </option>
+          ))}
+        </select>
+        {error("causeCategory", "Cause category")}
+      </div>
+      <div className="field">
+        <label htmlFor="description">What happened</label>
+        <textarea id="description" name="description" rows={3} {...described("description")} />
+        {error("description", "What happened")}
+      </div>
+      <div className="field">
+        <label htmlFor="value">Reading (optional, e.g. a dew point)</label>
+        <input id="value" name="value" inputMode="decimal" {...described("value")} />
+        {error("value", "Reading")}
+      </div>
+      <div className="field">
+        <label htmlFor="unit">Unit of the reading</label>
+        <input id="unit" name="unit" {...described("unit")} />
+        {error("unit", "Unit")}
+      </div>
+      <button type="submit" disabled={pending}>
+        {pending ? "Recording…" : "Record event"}
+      </button>
+    </form>
+  );
+}
