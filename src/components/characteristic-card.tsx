@@ -23,7 +23,9 @@ export function CharacteristicCard({ characteristic }: { characteristic: Charact
   return (
     <article className="card" aria-labelledby={`characteristic-${characteristic.id}`}>
       <header className="card-header">
-        <h3 id={`characteristic-${characteristic.id}`}>{characteristic.name}</h3>
+        <h3 id={`characteristic-${characteristic.id}`}>
+          <Link href={`/characteristics/${characteristic.id}`}>{characteristic.name}</Link>
+        </h3>
         {characteristic.safetyRelated && (
           <span className="badge badge-safety" aria-describedby={cautionId}>
             Safety-related
@@ -62,6 +64,9 @@ export function CharacteristicCard({ characteristic }: { characteristic: Charact
         </figure>
       )}
       <p className="card-actions">
+        <Link href={`/characteristics/${characteristic.id}/entry`}>
+          Enter a subgroup<span className="visually-hidden"> for {characteristic.name}</span>
+        </Link>{" "}
         <Link href={`/characteristics/${characteristic.id}/import`}>
           Import readings<span className="visually-hidden"> for {characteristic.name}</span>
         </Link>
