@@ -12,7 +12,8 @@
  *    does not depend on the length of the history. Firings merge into the signals still open
  *    (`mergeFirings`): a firing that continues one extends it instead of creating another. With no limit
  *    set yet, subgroups are stored and nothing is raised (`limits: null` says so).
- * Live signals carry no pattern: reading one needs the whole episode; re-evaluation adds it.
+ * A signal raised or extended gets the pattern the engine reads from a bounded window of recent
+ * subgroups (src/signals/live-pattern.ts).
  */
 import type { RuleId } from "@/shared/constants";
 import { subgroupSchemaFor, type TSubgroupInput } from "@/shared/intake";
@@ -23,6 +24,7 @@ import { AppError, type TIssue } from "@/src/errors";
 import { chartParametersOf } from "@/src/limits/parameters";
 import { limitSegments, type TSegment } from "@/src/limits/segments";
 import { summarySeries, type TSummary } from "@/src/limits/series";
+import { LIVE_PATTERN_WINDOW, readLivePatterns } from "@/src/signals/live-pattern";
 import { SIGNAL_VIEW, toSignalView, type TSignalView } from "@/src/signals/rows";
 import { firingsAt, mergeFirings, resolveRuleSet, RULE_TAIL_LENGTH, type Firing } from "@/src/spc/rules";
 import type { Signal, StatisticSeries } from "@/src/spc/types";
@@ -248,10 +250,24 @@ export async function appendSubgroups(
     if (measurements.length > 0) await transaction.measurement.createMany({ data: measurements });
     if (tags.length > 0) await transaction.subgroupTag.createMany({ data: tags });
 
-    const signals =
+    const touched =
       detection === undefined || segment === undefined
         ? []
         : await storeFirings(transaction, characteristicId, segment.limitSet.id, segment.from, detection.firings, options.now);
+    const lastSequence = firstSequence + chosen.length - 1;
+    const signals =
+      touched.length === 0 || segment === undefined
+        ? touched
+        : await readLivePatterns(
+            transaction,
+            characteristicId,
+            chart,
+            segment.limitSet,
+            segment.from,
+            lastSequence,
+            touched,
+            await segmentSignalsFrom(transaction, characteristicId, segment.limitSet.id, lastSequence + 1 - LIVE_PATTERN_WINDOW),
+          );
     const firedAt = new Map<number, RuleId[]>();
     for (const firing of detection?.firings ?? []) {
       const sequence = segment!.from + firing.index;
@@ -343,5 +359,15 @@ async function storeFirings(
     }
   }
   const rows = await transaction.signal.findMany({ where: { id: { in: touched } }, orderBy: [{ startSequence: "asc" }, { id: "asc" }], select: SIGNAL_VIEW });
+  return rows.map(toSignalView);
+}
+
+/** The signals of a limit set that end at or after `from`, for live pattern reading. */
+async function segmentSignalsFrom(transaction: Prisma.TransactionClient, characteristicId: number, limitSetId: number, from: number) {
+  const rows = await transaction.signal.findMany({
+    where: { characteristicId, limitSetId, endSequence: { gte: from } },
+    orderBy: [{ startSequence: "asc" }, { id: "asc" }],
+    select: SIGNAL_VIEW,
+  });
   return rows.map(toSignalView);
 }

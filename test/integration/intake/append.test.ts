@@ -85,4 +85,16 @@ describe("appending subgroups", () => {
     expect(onX(third)[0]!.id).not.toBe(onX(first)[0]!.id);
     expect(onX({ signals: await signalsFor(db, characteristic.id) }).map((signal) => signal.firing)).toEqual([[30, 31], [33]]);
   });
+
+  test("signals raised live carry the pattern the engine reads from the recent window", async () => {
+    const characteristic = await createCharacteristic(db, { processId, name: "Lid depth", unit: "mm", chartType: "imr", subgroupSize: 1, ruleSet: "we" });
+    // In control for 60 points, then a shift of 2.5 sigma (seeded test data).
+    const inputs = seededSubgroups("imr", 100, 41, 60, 2.5);
+    await appendSubgroups(db, characteristic.id, inputs.slice(0, 60), { source: "import", now: NOW });
+    await reviseLimits(db, characteristic.id, { baselineStart: 0, baselineEnd: 60, reason: "initial baseline", approvedBy: "Test engineer" }, NOW);
+    for (const input of inputs.slice(60)) await appendSubgroups(db, characteristic.id, [input], { source: "entry", now: NOW });
+    const afterShift = (await signalsFor(db, characteristic.id)).filter((signal) => signal.statistic === "x" && signal.startSequence >= 60);
+    expect(afterShift.length).toBeGreaterThan(0);
+    expect(afterShift.map((signal) => signal.pattern)).toContain("shift");
+  });
 });
