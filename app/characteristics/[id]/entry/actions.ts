@@ -8,6 +8,7 @@ import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { RULE_DEFINITIONS } from "@/src/spc/rules";
 import { appendSubgroups } from "@/src/subgroups";
+import { numberField, utcTimeField } from "../../setup-fields";
 
 export type TEntryState =
   | { readonly ok: null }
@@ -20,31 +21,16 @@ export type TEntryState =
       readonly notes: readonly string[];
     };
 
-/** A typed number: a decimal comma is read as a decimal point; anything else that is not a number stays text for zod to refuse. */
-function numberField(form: FormData, name: string): number | string | undefined {
-  const text = String(form.get(name) ?? "").trim();
-  if (text === "") return undefined;
-  const normalised = /^-?\d+,\d+$/.test(text) ? text.replace(",", ".") : text;
-  const value = Number(normalised);
-  return Number.isFinite(value) ? value : text;
-}
-
-/** The time field (a local date-time typed as UTC) as ISO 8601 with a zone. */
-function timestampField(form: FormData): string {
-  const text = String(form.get("timestamp") ?? "").trim();
-  return /^\d{4}-\d\d-\d\dT\d\d:\d\d(:\d\d)?$/.test(text) ? `${text.length === 16 ? `${text}:00` : text}Z` : text;
-}
-
 export async function enterSubgroup(characteristicId: number, _previous: TEntryState, form: FormData): Promise<TEntryState> {
   const characteristic = await getCharacteristic(prisma, characteristicId);
   const variables = VARIABLES_CHART_TYPES.includes(characteristic.chartType);
   const input = variables
     ? {
-        timestamp: timestampField(form),
+        timestamp: utcTimeField(form, "timestamp"),
         values: Array.from({ length: characteristic.subgroupSize }, (_, position) => numberField(form, `values.${position}`)),
       }
     : {
-        timestamp: timestampField(form),
+        timestamp: utcTimeField(form, "timestamp"),
         count: numberField(form, "count"),
         ...(characteristic.chartType === "u" ? { units: numberField(form, "units") } : {}),
         ...(characteristic.chartType === "p" || characteristic.chartType === "np" ? { size: numberField(form, "size") } : {}),

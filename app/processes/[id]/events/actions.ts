@@ -5,24 +5,17 @@ import { describeIssues, ZEventInput } from "@/shared/intake";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { recordEvent } from "@/src/events";
+import { numberField, text, utcTimeField } from "../../../characteristics/setup-fields";
 
 export type TEventFormState = { readonly ok: null } | { readonly ok: true; readonly id: number } | { readonly ok: false; readonly issues: readonly { path: string; message: string }[] };
 
-function text(form: FormData, name: string): string | undefined {
-  const value = String(form.get(name) ?? "").trim();
-  return value === "" ? undefined : value;
-}
-
 export async function addEvent(processId: number, _previous: TEventFormState, form: FormData): Promise<TEventFormState> {
-  const time = text(form, "occurredAt");
-  const valueText = text(form, "value");
-  const value = valueText === undefined ? undefined : Number(valueText.replace(/^(-?\d+),(\d+)$/, "$1.$2"));
   const parsed = ZEventInput.safeParse({
-    occurredAt: time !== undefined && /^\d{4}-\d\d-\d\dT\d\d:\d\d$/.test(time) ? `${time}:00Z` : time,
+    occurredAt: utcTimeField(form, "occurredAt"),
     kind: text(form, "kind"),
     causeCategory: text(form, "causeCategory"),
     description: text(form, "description"),
-    value: value !== undefined && Number.isNaN(value) ? valueText : value,
+    value: numberField(form, "value"),
     unit: text(form, "unit"),
   });
   if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error) };

@@ -1,0 +1,55 @@
+"use client";
+
+import { useActionState } from "react";
+import { FormField } from "../../form-field";
+import type { TFormState } from "../../setup-fields";
+
+export function LimitRevisionForm({
+  action: serverAction,
+  lastSequence,
+}: {
+  action: (previous: TFormState, form: FormData) => Promise<TFormState>;
+  lastSequence: number | null;
+}) {
+  const [state, action, pending] = useActionState(serverAction, { ok: null } as TFormState);
+  const issues = state.ok === false ? state.issues : [];
+  const general = issues.filter((issue) => issue.path === "");
+  return (
+    <form action={action} className="settings-form" noValidate>
+      {state.ok === true && <p role="status">{state.message}</p>}
+      {general.map((issue, index) => (
+        <p key={index} className="form-error" role="alert">
+          {issue.message}
+        </p>
+      ))}
+      <FormField name="baselineStart" label="Baseline: first subgroup" hint="The new version applies from this subgroup on" issues={issues}>
+        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue="0" />}
+      </FormField>
+      <FormField
+        name="baselineLast"
+        label="Baseline: last subgroup"
+        hint={lastSequence === null ? "No subgroups stored yet" : `Subgroups 0 to ${lastSequence} are stored`}
+        issues={issues}
+      >
+        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={lastSequence === null ? "" : String(Math.min(lastSequence, 99))} />}
+      </FormField>
+      <FormField
+        name="exclusions"
+        label="Subgroups left out of the baseline (optional)"
+        hint='One per line, "subgroup: reason", e.g. "17: wrong mould inserted"'
+        issues={issues}
+      >
+        {(attributes) => <textarea {...attributes} rows={3} />}
+      </FormField>
+      <FormField name="reason" label="Reason for the new version" issues={issues}>
+        {(attributes) => <input {...attributes} />}
+      </FormField>
+      <FormField name="approvedBy" label="Approved by" issues={issues}>
+        {(attributes) => <input {...attributes} autoComplete="name" />}
+      </FormField>
+      <button type="submit" disabled={pending}>
+        {pending ? "Computing…" : "Compute and freeze new limits"}
+      </button>
+    </form>
+  );
+}
