@@ -45,7 +45,8 @@ export function databaseFileFromUrl(url: string): string {
       `DATABASE_URL "${url}" ${parsed.error.issues.map((issue) => issue.message).join("; ")}. Correct it, or unset it to use the default (${DEFAULT_DATABASE_URL}).`,
     );
   }
-  return path.resolve(process.cwd(), parsed.data.slice("file:".length));
+  // The path is only known at run time: tell Turbopack not to trace the project folder into the build output.
+  return path.resolve(/*turbopackIgnore: true*/ process.cwd(), parsed.data.slice("file:".length));
 }
 
 /** Parses an environment (process.env by default); throws EnvironmentError naming the bad variable. */
