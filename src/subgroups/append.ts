@@ -77,6 +77,15 @@ function rejectAll(message: string, issues: TIssue[]): never {
   throw new AppError("invalid-input", message, issues);
 }
 
+/** One schema per chart type and size: building a zod schema costs more than checking one subgroup. */
+const schemas = new Map<string, ReturnType<typeof subgroupSchemaFor>>();
+function schemaFor(chart: ReturnType<typeof chartTypeOf>, subgroupSize: number): ReturnType<typeof subgroupSchemaFor> {
+  const key = `${chart}/${subgroupSize}`;
+  let schema = schemas.get(key);
+  if (schema === undefined) schemas.set(key, (schema = subgroupSchemaFor(chart, subgroupSize)));
+  return schema;
+}
+
 function validate(
   chart: ReturnType<typeof chartTypeOf>,
   subgroupSize: number,
@@ -87,7 +96,7 @@ function validate(
   if (sourceKeys !== undefined && sourceKeys.length !== inputs.length) {
     throw new Error(`appendSubgroups: ${sourceKeys.length} source keys for ${inputs.length} subgroups`);
   }
-  const schema = subgroupSchemaFor(chart, subgroupSize);
+  const schema = schemaFor(chart, subgroupSize);
   const issues: TIssue[] = [];
   const parsed = inputs.map((input, index) => check(schema, input, index, issues));
   const firstOf = new Map<string, number>();
