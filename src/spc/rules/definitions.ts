@@ -154,12 +154,10 @@ export const RULE_SETS: Readonly<Record<"we" | "nelson", readonly RuleId[]>> = {
   nelson: NELSON_RULES,
 };
 
-const RULE_POSITIONS = Object.fromEntries(RULE_IDS.map((rule, position) => [rule, position])) as Record<
-  RuleId,
-  number
->;
+/** A Map rather than an object: looked up once per firing when merging, and a Map reads a string key faster. */
+const RULE_POSITIONS = new Map(RULE_IDS.map((rule, position) => [rule, position]));
 
 /** Position of a rule in the canonical order (RULE_IDS); also its bit in a rule mask. */
 export function ruleOrder(rule: RuleId): number {
-  return RULE_POSITIONS[rule];
+  return RULE_POSITIONS.get(rule)!;
 }

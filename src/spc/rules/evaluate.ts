@@ -1,14 +1,16 @@
 /**
- * Batch evaluation of run rules over one plotted statistic: one pass of the shared scanner
- * (scanner.ts) over the whole series, then the firings merged into signals (merge.ts).
+ * Batch evaluation of run rules over one plotted statistic: one word-parallel pass over the whole series
+ * (batch-scanner.ts, equal to the shared scanner of scanner.ts), its firings merged into signals as they
+ * come (merge.ts).
  * Rules and conventions: definitions.ts (Western Electric 1956; Nelson 1984, JQT 16(4)).
  * Cost: O(n) time, memory O(number of firings).
  */
 import type { RuleId } from "../../../shared/constants";
 import { SpcInputError, type Signal, type StatisticSeries } from "../types";
 import { lowerZoneNotes, planRules, type RuleOptions, type SkippedRule } from "./applicability";
-import { mergeFirings } from "./merge";
-import { RuleScanner, ruleMask, type Firing } from "./scanner";
+import { scanWords } from "./batch-scanner";
+import { SignalBuilder } from "./merge";
+import { RuleScanner, ruleMask, type Firing, type FiringSink } from "./scanner";
 
 export interface RuleEvaluation {
   readonly signals: Signal[];
@@ -34,18 +36,35 @@ function plan(series: StatisticSeries, rules: readonly RuleId[], options: RuleOp
   return planRules(series, rules, options, sigmaDefined);
 }
 
-function scanSeries(series: StatisticSeries, active: readonly RuleId[]): Firing[] {
+/**
+ * Feeds `sink` every firing of the active rules over the whole series, in index order: the word-parallel
+ * scan (batch-scanner.ts, equal to the scanner by a property test) for speed; the scanner itself when the
+ * word scan declines (input the scanner refuses with its error), after `restart` has dropped what the
+ * word scan had fed.
+ */
+function scanSeries(series: StatisticSeries, active: readonly RuleId[], sink: FiringSink, restart: () => void): void {
+  if (active.length === 0) return;
+  const rules = ruleMask(active);
+  if (scanWords(series, rules, series.center, series.floor, sink)) return;
+  restart();
   const firings: Firing[] = [];
-  if (active.length === 0) return firings;
-  const scanner = new RuleScanner(series.key, ruleMask(active), series.center, series.floor);
-  scanner.scan(series, 0, series.points.length, 0, firings);
-  return firings;
+  new RuleScanner(series.key, rules, series.center, series.floor).scan(series, 0, series.points.length, 0, firings);
+  for (const { rule, index, windowStart, side } of firings) sink(rule, index, windowStart, side);
 }
 
 /** Every firing of the applicable rules, in index order (what live detection reproduces point by point). */
 export function ruleFirings(series: StatisticSeries, rules: readonly RuleId[], options: RuleOptions = {}): Firing[] {
   checkSeries(series);
-  return scanSeries(series, plan(series, rules, options).active);
+  const chart = series.key;
+  let firings: Firing[] = [];
+  scanSeries(
+    series,
+    plan(series, rules, options).active,
+    (rule, index, windowStart, side) =>
+      firings.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side }),
+    () => (firings = []),
+  );
+  return firings;
 }
 
 /** Signals of the requested rules on one statistic, the rules skipped and why, and notes. */
@@ -56,5 +75,13 @@ export function evaluateRules(
 ): RuleEvaluation {
   checkSeries(series);
   const { active, skipped } = plan(series, rules, options);
-  return { signals: mergeFirings(scanSeries(series, active)), skipped, notes: lowerZoneNotes(series, active) };
+  const chart = series.key;
+  let builder = new SignalBuilder();
+  scanSeries(
+    series,
+    active,
+    (rule, index, windowStart, side) => builder.add(rule, chart, index, windowStart, side),
+    () => (builder = new SignalBuilder()),
+  );
+  return { signals: builder.result(), skipped, notes: lowerZoneNotes(series, active) };
 }

@@ -81,52 +81,57 @@ export interface ScanArrays {
   readonly sigma: Float64Array;
 }
 
-/** Pattern bits computed per point by the scanner. */
-const PATTERN_ABOVE_LIMIT = 1;
-const PATTERN_BELOW_LIMIT = 2;
-const PATTERN_EIGHT_ON_ONE_SIDE = 4;
-const PATTERN_FIVE_STEPS_ONE_WAY = 8;
-const PATTERN_THIRTEEN_ALTERNATIONS = 16;
-const PATTERN_TWO_OF_THREE = 32;
-const PATTERN_FOUR_OF_FIVE = 64;
-const PATTERN_FIFTEEN_WITHIN = 128;
-const PATTERN_EIGHT_BEYOND = 256;
+/** Receives each firing (of the scanner's statistic) as it is found, in index order. */
+export type FiringSink = (rule: RuleId, index: number, windowStart: number, side: "above" | "below" | undefined) => void;
 
-/** Append the firings of the requested rules for the patterns completed at `index` (rarely called). */
-function emitFirings(
-  out: Firing[],
-  chart: StatisticKey,
+/** Pattern bits computed per point by the scanner (and by the word-parallel batch form, batch-scanner.ts). */
+export const PATTERN_ABOVE_LIMIT = 1;
+export const PATTERN_BELOW_LIMIT = 2;
+export const PATTERN_EIGHT_ON_ONE_SIDE = 4;
+export const PATTERN_FIVE_STEPS_ONE_WAY = 8;
+export const PATTERN_THIRTEEN_ALTERNATIONS = 16;
+export const PATTERN_TWO_OF_THREE = 32;
+export const PATTERN_FOUR_OF_FIVE = 64;
+export const PATTERN_FIFTEEN_WITHIN = 128;
+export const PATTERN_EIGHT_BEYOND = 256;
+/** Set with PATTERN_EIGHT_ON_ONE_SIDE when the run on that side has 9 points. */
+export const PATTERN_NINE_ON_ONE_SIDE = 512;
+
+/**
+ * Append the firings of the requested rules for the patterns completed at `index` (rarely called).
+ * `newestAbove` says whether the point at `index` is above the centre line: it gives the side of every
+ * one-sided pattern but rule 1, because each of them counts the newest point (a run on one side, or
+ * 2 of 3 beyond 2σ / 4 of 5 beyond 1σ with the newest among them). `stretchStart` is the first index
+ * after the last missing point (or the first index fed): early k-of-m windows start there.
+ */
+export function emitFirings(
+  sink: FiringSink,
   rules: number,
   patterns: number,
   index: number,
   stretchStart: number,
-  sides: number,
-  beyondOne: number,
-  beyondTwo: number,
+  newestAbove: boolean,
 ): void {
   const push = (rule: RuleId, windowStart: number, side?: "above" | "below"): void => {
-    if ((rules & bit(rule)) === 0) return;
-    out.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side });
+    if ((rules & bit(rule)) !== 0) sink(rule, index, windowStart, side);
   };
   if ((patterns & (PATTERN_ABOVE_LIMIT | PATTERN_BELOW_LIMIT)) !== 0) {
     const side = (patterns & PATTERN_ABOVE_LIMIT) !== 0 ? "above" : "below";
     push("we-1", index, side);
     push("nelson-1", index, side);
   }
+  const side = newestAbove ? "above" : "below";
   if ((patterns & PATTERN_EIGHT_ON_ONE_SIDE) !== 0) {
-    const side = (sides & 1) === 1 ? "above" : "below";
     push("we-4", index - 7, side);
-    if (((side === "above" ? sides : sides >>> LOWER) & 0x1ff) === 0x1ff) push("nelson-2", index - 8, side);
+    if ((patterns & PATTERN_NINE_ON_ONE_SIDE) !== 0) push("nelson-2", index - 8, side);
   }
   if ((patterns & PATTERN_FIVE_STEPS_ONE_WAY) !== 0) push("nelson-3", index - 5);
   if ((patterns & PATTERN_THIRTEEN_ALTERNATIONS) !== 0) push("nelson-4", index - 13);
   if ((patterns & PATTERN_TWO_OF_THREE) !== 0) {
-    const side = (beyondTwo & 1) === 1 ? "above" : "below";
     push("we-2", Math.max(stretchStart, index - 2), side);
     push("nelson-5", Math.max(stretchStart, index - 2), side);
   }
   if ((patterns & PATTERN_FOUR_OF_FIVE) !== 0) {
-    const side = (beyondOne & 1) === 1 ? "above" : "below";
     push("we-3", Math.max(stretchStart, index - 4), side);
     push("nelson-6", Math.max(stretchStart, index - 4), side);
   }
@@ -139,6 +144,12 @@ export class RuleScanner {
   private readonly rules: number;
   private readonly center: number;
   private readonly floor: number;
+  /** Where `scan` appends firings, and the sink that appends them (made once: the stream scans point by point). */
+  private out: Firing[] = [];
+  private readonly sink: FiringSink = (rule, index, windowStart, side) => {
+    const chart = this.chart;
+    this.out.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side });
+  };
   /** First index of the current stretch of values (the first index fed, or just after the last NaN). */
   private stretchStart: number;
   private previous = Number.NaN;
@@ -162,7 +173,8 @@ export class RuleScanner {
    */
   scan(arrays: ScanArrays, from: number, to: number, offset: number, out: Firing[]): void {
     const { points, ucl, lcl, sigma } = arrays;
-    const { rules, center, floor, chart } = this;
+    const { rules, center, floor, chart, sink } = this;
+    this.out = out;
     // Module constants copied to locals: the loop then reads registers, not the module context.
     const sideBits = SIDE_BITS;
     const beyondOneBits = BEYOND_ONE_BITS;
@@ -198,7 +210,7 @@ export class RuleScanner {
       // Rule 1 against the series' own limits; pattern families are added below.
       let patterns = +(value > ucl[position]!) | (+(value < lcl[position]!) << 1);
       if (!runRules) {
-        if (patterns !== 0) emitFirings(out, chart, rules, patterns, index, stretchStart, 0, 0, 0);
+        if (patterns !== 0) emitFirings(sink, rules, patterns, index, stretchStart, false);
         continue;
       }
 
@@ -238,7 +250,10 @@ export class RuleScanner {
       // last 8 points, 0x1f = 5, 0xfff = 12, 0x1fff = 13; ">>> 15" reads the lower side's history.
       const below = sides >>> 15;
       const beyondOneBelow = beyondOne >>> 15;
-      if ((sides & 0xff) === 0xff || (below & 0xff) === 0xff) patterns |= 4; // PATTERN_EIGHT_ON_ONE_SIDE
+      if ((sides & 0xff) === 0xff || (below & 0xff) === 0xff) {
+        patterns |= 4; // PATTERN_EIGHT_ON_ONE_SIDE
+        if ((((sides & 1) === 1 ? sides : below) & 0x1ff) === 0x1ff) patterns |= 512; // PATTERN_NINE_ON_ONE_SIDE
+      }
       if ((directions & 0x1f) === 0x1f || ((directions >>> 15) & 0x1f) === 0x1f) patterns |= 8; // PATTERN_FIVE_STEPS_ONE_WAY
       if (
         ((directions ^ (directions >>> 1)) & 0xfff) === 0xfff &&
@@ -254,7 +269,7 @@ export class RuleScanner {
       if (((beyondOne | beyondOneBelow) & 0xff) === 0xff && (sides & 0xff) !== 0 && (below & 0xff) !== 0) {
         patterns |= 256; // PATTERN_EIGHT_BEYOND
       }
-      if (patterns !== 0) emitFirings(out, chart, rules, patterns, index, stretchStart, sides, beyondOne, beyondTwo);
+      if (patterns !== 0) emitFirings(sink, rules, patterns, index, stretchStart, (sides & 1) === 1);
     }
 
     this.stretchStart = stretchStart;
