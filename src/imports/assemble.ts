@@ -11,7 +11,7 @@
  * same readings exported again with another separator or decimal mark are recognised; tags are not part
  * of the key, so renaming a tag in a re-export does not duplicate measurements.
  */
-import { createHash } from "node:crypto";
+import { hash } from "node:crypto";
 import { VARIABLES_CHART_TYPES, type ChartType } from "@/shared/constants";
 import { subgroupSchemaFor } from "@/shared/intake";
 import type { CsvProblem } from "@/src/io/csv/errors";
@@ -36,6 +36,8 @@ export interface TAssembledSubgroup {
   readonly firstLine: number;
   readonly rows: readonly TImportRow[];
   readonly timestamp: number;
+  /** The same time as ISO 8601 text (UTC, "Z"). */
+  readonly isoTime: string;
   readonly recorded: TRecorded;
   readonly tags: Readonly<Record<string, string>>;
   readonly sourceKey: string;
@@ -66,7 +68,7 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
   };
   let pending: TImportRow[] = [];
   let previousTime = -Infinity;
-  let occurrences = new Map<string, number>();
+  const occurrences = new Map<string, number>();
 
   function reject(rows: readonly TImportRow[], problems: readonly CsvProblem[]): void {
     const byLine = new Map<number, CsvProblem[]>();
@@ -87,9 +89,8 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
   function finish(rows: TImportRow[]): void {
     const first = rows[0];
     if (first === undefined) return;
-    const ownProblems = rows.flatMap((row) => row.problems);
-    if (ownProblems.length > 0) return reject(rows, ownProblems);
-    const parsed = rows.map((row) => row.parsed as TParsedRow);
+    if (rows.some((row) => row.problems.length > 0)) return reject(rows, rows.flatMap((row) => row.problems));
+    const parsed = rows.length === 1 ? [first.parsed as TParsedRow] : rows.map((row) => row.parsed as TParsedRow);
     const head = parsed[0] as TParsedRow;
     const problems: CsvProblem[] = [];
     if (!variables && rows.length > 1) {
@@ -97,7 +98,8 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
         problems.push({ line: row.line, column: mapping.subgroup, message: `subgroup "${first.label ?? ""}" has ${rows.length} rows: a ${chart} chart takes one row per subgroup` });
       }
     }
-    for (const row of parsed.slice(1)) {
+    for (let index = 1; index < parsed.length; index += 1) {
+      const row = parsed[index] as TParsedRow;
       for (const tag of new Set([...Object.keys(head.tags), ...Object.keys(row.tags)])) {
         if (head.tags[tag] !== row.tags[tag]) {
           const column = mapping.tags.find((entry) => entry.tag === tag)?.column;
@@ -112,7 +114,8 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     const recorded: TRecorded = variables
       ? { values: parsed.map((row) => row.value as number) }
       : { count: head.count, size: head.size, units: head.units };
-    const checked = schema.safeParse({ timestamp: new Date(head.timestamp).toISOString(), ...recorded, tags: head.tags });
+    const isoTime = new Date(head.timestamp).toISOString();
+    const checked = schema.safeParse({ timestamp: isoTime, ...recorded, tags: head.tags });
     if (!checked.success) {
       for (const issue of checked.error.issues) {
         const field = String(issue.path[0] ?? "");
@@ -129,14 +132,14 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     }
     if (problems.length > 0) return reject(rows, problems);
 
-    if (head.timestamp !== previousTime) occurrences = new Map();
+    if (head.timestamp !== previousTime && occurrences.size > 0) occurrences.clear();
     previousTime = head.timestamp;
     const numbers = variables ? (recorded.values ?? []).join(",") : `${recorded.count}/${recorded.size ?? ""}/${recorded.units ?? ""}`;
     const content = `${first.label ?? ""}\u001f${head.timestamp}\u001f${numbers}`;
     const occurrence = occurrences.get(content) ?? 0;
     occurrences.set(content, occurrence + 1);
-    const sourceKey = `csv:${createHash("sha256").update(`${content}\u001f${occurrence}`).digest().subarray(0, KEY_BYTES).toString("base64url")}`;
-    output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, recorded, tags: head.tags, sourceKey });
+    const sourceKey = `csv:${hash("sha256", `${content}\u001f${occurrence}`, "buffer").toString("base64url", 0, KEY_BYTES)}`;
+    output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, isoTime, recorded, tags: head.tags, sourceKey });
   }
 
   return {

@@ -72,7 +72,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
   const { mapping, mode } = options;
   const characteristic = await getCharacteristic(db, request.characteristicId);
   const { chartType, subgroupSize } = characteristic;
-  const createdAt = storedTime(request.now.getTime());
+  const createdAt = storedTime(request.now.toISOString());
 
   try {
     database.exec("BEGIN IMMEDIATE");

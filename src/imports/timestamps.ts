@@ -30,6 +30,13 @@ const FORMS = "2026-03-01T06:00:00Z (ISO 8601 with a zone), 2026-03-01 06:00, 01
 
 const MONTH_NAMES = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
 
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** Gregorian leap years: every fourth year, except centuries not divisible by 400. */
+function isLeapYear(year: number): boolean {
+  return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+}
+
 /** Minutes east of UTC for "Z", "+01:00" or "-0500". */
 function offsetMinutes(zone: string): number {
   if (zone.toUpperCase() === "Z") return 0;
@@ -53,7 +60,7 @@ function toMilliseconds(text: string, parts: Parts, zone: string): TTimestampRes
   const second = Number(secondText ?? "0");
   const { year, month, day } = parts;
   if (month < 1 || month > 12) return { ok: false, message: `"${text}" has month ${month}: months run from 1 to 12` };
-  const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
+  const daysInMonth = month === 2 && isLeapYear(year) ? 29 : (DAYS_IN_MONTH[month - 1] ?? 31);
   if (day < 1 || day > daysInMonth) {
     return { ok: false, message: `"${text}" names day ${day} of ${MONTH_NAMES[month - 1]} ${year}, which has ${daysInMonth} days` };
   }

@@ -17,7 +17,7 @@ import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import type { ReadableStream as NodeReadableStream } from "node:stream/web";
 import { z } from "zod";
-import type { TApiError } from "@/shared/api";
+import { ZIdParams, type TApiError } from "@/shared/api";
 import { apiDatabase } from "@/src/api/database";
 import type { TRouteContext } from "@/src/api/handler";
 import { loopbackRefusal } from "@/src/api/loopback";
@@ -41,8 +41,7 @@ export type TImportMessage =
   | { readonly type: "result"; readonly result: TImportResult }
   | { readonly type: "error"; readonly status: number; readonly error: TApiError["error"] };
 
-const ZImportPath = z.object({ id: z.coerce.number().int().positive() });
-const ZRejectedPath = ZImportPath.extend({ batchId: z.coerce.number().int().positive() });
+const ZRejectedPath = ZIdParams.extend({ batchId: ZIdParams.shape.id });
 
 function refuseRemoteCallers(request: Request): void {
   const refusal = loopbackRefusal(request.headers);
@@ -95,7 +94,7 @@ export async function handleImportUpload(request: Request, context: TRouteContex
   let upload: { directory: string; file: string };
   try {
     refuseRemoteCallers(request);
-    characteristicId = parseInput(ZImportPath, await context.params, "path").id;
+    characteristicId = parseInput(ZIdParams, await context.params, "path").id;
     options = parseInput(ZImportOptions, optionsFromQuery(new URL(request.url)), "import options");
     await getCharacteristic(await apiDatabase(), characteristicId);
     if (request.body === null) throw new AppError("invalid-input", "The request carries no file: send the CSV file as the request body.");

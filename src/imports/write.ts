@@ -29,9 +29,9 @@ export function openImportDatabase(databaseFile: string): Database.Database {
   return database;
 }
 
-/** Prisma's text form of a DateTime in SQLite ("2026-03-01T06:00:00.000+00:00"). */
-export function storedTime(milliseconds: number): string {
-  return new Date(milliseconds).toISOString().replace("Z", "+00:00");
+/** Prisma's text form of a DateTime in SQLite ("2026-03-01T06:00:00.000+00:00"), from ISO 8601 UTC text. */
+export function storedTime(isoTime: string): string {
+  return `${isoTime.slice(0, -1)}+00:00`;
 }
 
 export type TWriteOutcome = { readonly kind: "added"; readonly sequence: number } | { readonly kind: "present" } | { readonly kind: "refused"; readonly problem: CsvProblem };
@@ -82,7 +82,7 @@ export function createSubgroupWriter(database: Database.Database, characteristic
       const { changes, lastInsertRowid } = insertSubgroup.run(
         characteristicId,
         sequence,
-        storedTime(subgroup.timestamp),
+        storedTime(subgroup.isoTime),
         columns.count,
         columns.size,
         subgroup.sourceKey,

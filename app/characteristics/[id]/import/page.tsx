@@ -1,29 +1,12 @@
 // CSV import into one characteristic: thin server page (load the characteristic, render the workflow).
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { z } from "zod";
-import { getCharacteristic } from "@/src/characteristics/setup";
-import { prisma } from "@/src/db/client";
-import { isAppError } from "@/src/errors";
+import { connection } from "next/server";
+import { findCharacteristic } from "../../find-characteristic";
 import { ImportForm } from "./import-form";
 
-export const dynamic = "force-dynamic";
-
-const ZParams = z.object({ id: z.coerce.number().int().positive() });
-
-async function load(id: number) {
-  try {
-    return await getCharacteristic(prisma, id);
-  } catch (error) {
-    if (isAppError(error) && error.code === "not-found") notFound();
-    throw error;
-  }
-}
-
 export default async function ImportPage({ params }: { params: Promise<{ id: string }> }) {
-  const parsed = ZParams.safeParse(await params);
-  if (!parsed.success) notFound();
-  const characteristic = await load(parsed.data.id);
+  await connection();
+  const characteristic = await findCharacteristic(params);
   const size = characteristic.subgroupSize === 1 ? "one value per point" : `subgroups of ${characteristic.subgroupSize}`;
   return (
     <>
