@@ -31,6 +31,7 @@ import type { Signal, StatisticSeries } from "@/src/spc/types";
 import { summarize } from "./summaries";
 
 export interface TAppendOptions {
+  /** Where the subgroups come from; only an import may name an import batch. */
   readonly source: "api" | "entry" | "import";
   readonly now: Date;
   readonly importBatchId?: number;
@@ -147,8 +148,6 @@ interface TDetection {
   readonly statistics: StatisticSeries[];
   /** Position of the first new point in `statistics`. */
   readonly firstNew: number;
-  /** Segment index of position 0 of `statistics`. */
-  readonly firstIndex: number;
   readonly firings: Firing[];
 }
 
@@ -179,7 +178,7 @@ function detect(
       firings.push(...firingsAt(slice(series, from, position + 1), firstIndex + from, rules));
     }
   }
-  return { statistics, firstNew: tail.length, firstIndex, firings };
+  return { statistics, firstNew: tail.length, firings };
 }
 
 export async function appendSubgroups(
@@ -188,6 +187,9 @@ export async function appendSubgroups(
   inputs: readonly unknown[],
   options: TAppendOptions,
 ): Promise<TAppendResult> {
+  if (options.importBatchId !== undefined && options.source !== "import") {
+    throw new Error(`appendSubgroups: an import batch was given for subgroups from the ${options.source}`);
+  }
   return db.$transaction(async (transaction) => {
     // One read for everything the call needs: settings, limit versions, and the last stored points
     // (the time-order check and the tail of live detection).

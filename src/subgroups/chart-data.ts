@@ -21,7 +21,7 @@ export async function readChartData(
   from: number,
   to: number,
 ): Promise<TStoredRange | undefined> {
-  const where = { characteristicId, sequence: Number.isFinite(to) ? { gte: from, lt: to } : { gte: from } };
+  const end = Number.isFinite(to) ? to : Number.MAX_SAFE_INTEGER;
   if (VARIABLES_CHART_TYPES.includes(chart)) {
     // One joined query: Prisma's relation loading binds every subgroup id and exceeds SQLite's parameter limit.
     const rows = await db.$queryRawUnsafe<{ sequence: number | bigint; value: number }[]>(
@@ -29,7 +29,7 @@ export async function readChartData(
         `WHERE s."characteristicId" = ? AND s."sequence" >= ? AND s."sequence" < ? ORDER BY s."sequence", m."position"`,
       characteristicId,
       from,
-      Number.isFinite(to) ? to : Number.MAX_SAFE_INTEGER,
+      end,
     );
     if (rows.length === 0) return undefined;
     const sequences: number[] = [];
@@ -44,7 +44,11 @@ export async function readChartData(
     }
     return { data: variablesData(subgroups), sequences };
   }
-  const rows = await db.subgroup.findMany({ where, orderBy: { sequence: "asc" }, select: { sequence: true, count: true, size: true } });
+  const rows = await db.subgroup.findMany({
+    where: { characteristicId, sequence: { gte: from, lt: end } },
+    orderBy: { sequence: "asc" },
+    select: { sequence: true, count: true, size: true },
+  });
   if (rows.length === 0) return undefined;
   return {
     data: attributesData(
