@@ -8,6 +8,7 @@
  * `SeedSummary`, which scripts/db-seed.ts and the app's start-up print once.
  */
 import type { Prisma, PrismaClient } from "@/src/db/generated/client";
+import { summarize } from "@/src/subgroups/summaries";
 import { seedDemoLimits } from "./limits";
 import { DEFAULT_DEMO_SEED, generateDemoScenario } from "./scenario";
 import type { DemoCharacteristic, DemoScenario, PlantedEpisode } from "./types";
@@ -86,8 +87,13 @@ async function writeCharacteristic(
         characteristicId,
         sequence: subgroup.sequence,
         timestamp: subgroup.timestamp,
-        count: subgroup.count,
-        size: subgroup.size,
+        // The cached summaries live detection reads (mean, spread, count, size), as appendSubgroups writes them.
+        ...summarize(characteristic.chartType, {
+          values: subgroup.values,
+          count: subgroup.count ?? undefined,
+          size: subgroup.size ?? undefined,
+          units: subgroup.size ?? undefined,
+        }),
       })),
       select: { id: true, sequence: true },
     });

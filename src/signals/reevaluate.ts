@@ -23,7 +23,7 @@ import { readChartData } from "@/src/subgroups/chart-data";
 import { writeSmoothedState, clearSmoothedState } from "@/src/subgroups/smoothed-state";
 import { inSequences, patternFor } from "./rows";
 
-export const SIGNAL_TRIGGERS = ["limit-revision", "correction", "request"] as const;
+export const SIGNAL_TRIGGERS = ["limit-revision", "correction", "request", "import"] as const;
 export type TSignalTrigger = (typeof SIGNAL_TRIGGERS)[number];
 
 export interface TReevaluationRequest {

@@ -12,6 +12,7 @@ import { signalsFor } from "@/src/signals";
 import { analyze } from "@/src/spc/analyze";
 import { attributesData, variablesData } from "@/src/spc/data";
 import type { PrismaClient } from "@/src/db/connect";
+import { appendSubgroups } from "@/src/subgroups";
 import { registerTestDatabase } from "./database";
 
 const openDatabase = registerTestDatabase("demo");
@@ -73,6 +74,23 @@ describe("demo history signals", () => {
       expect(signals.sort(order)).toEqual(expected.sort(order));
     },
   );
+
+  test("the seeded history carries the cached summaries, so live appends continue it", async () => {
+    for (const demo of scenario.characteristics) {
+      const stored = await db.characteristic.findFirstOrThrow({ where: { name: demo.name }, select: { id: true } });
+      const variables = VARIABLES_CHART_TYPES.includes(demo.chartType);
+      const missing = await db.subgroup.count({ where: { characteristicId: stored.id, ...(variables ? { mean: null } : { count: null }) } });
+      expect(missing).toBe(0);
+      const last = demo.subgroups.at(-1)!;
+      const next = {
+        timestamp: new Date(last.timestamp.getTime() + 3_600_000).toISOString(),
+        ...(variables ? { values: last.values } : demo.chartType === "u" ? { count: last.count!, units: last.size! } : { count: last.count!, size: last.size! }),
+      };
+      const result = await appendSubgroups(db, stored.id, [next], { source: "api", now: END });
+      expect(result.limits?.version).toBe(1);
+      expect(result.stored[0]!.sequence).toBe(demo.subgroups.length);
+    }
+  });
 
   test("signals inside planted episodes carry the pattern the engine reads", async () => {
     const withPattern = await db.signal.count({ where: { pattern: { not: null } } });
