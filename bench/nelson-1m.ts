@@ -1,45 +1,82 @@
 /**
  * Speed of the run rules: all eight Nelson tests over 1,000,000 individuals, against a bare single pass
- * summing the same Float64Array, measured in the same run (median of several repetitions after warm-up).
- * Target (issue 3): the rules take at most 10 times the bare pass. Exits 1 if the ratio exceeds 10.
+ * summing the same Float64Array, measured in the same run. Target (issue 3): the rules take at most 10
+ * times the bare pass. Exits 1 if the ratio exceeds 10.
  *
- * Both are timed in CPU time of this process (process.cpuUsage, user + system) and in wall time. The
- * ratio uses CPU time: on a shared machine busier than its cores, the wall time of the longer run also
- * counts the time spent waiting for a core, which the 1 ms bare pass mostly escapes.
+ * How it is measured:
+ * - The two are timed alternately (bare, rules, bare, rules, ...) after warm-up, so that both see the same
+ *   state of the machine, in CPU time of this process (process.cpuUsage, user + system) and in wall time.
+ * - The ratio uses the minimum of the repetitions on each side: on a shared, loaded machine every
+ *   disturbance (another process taking the core, a cache flushed, a garbage collection or a compiler
+ *   thread counted in the process's CPU time) only adds time, so the minimum is the least disturbed
+ *   estimate. Medians are printed beside it.
+ * - The rules side is the real entry point, `evaluateRules` from src/spc/rules, producing merged signals;
+ *   nothing is cached between repetitions. The bare side is the plainest loop over the same array.
+ *
+ * - How the code is loaded: run under tsx, this file bundles itself with esbuild (the compiler tsx uses)
+ *   and measures in a child `node` on the bundle, without loader hooks or source maps. Under tsx the
+ *   bare pass measured twice as slow as in plain node (about 1.8 ms against 0.85 ms for the same loop,
+ *   for a reason not found), which would flatter the ratio; the bundle gives the fastest bare pass, so
+ *   the least favourable, honest ratio. The engine code is the same source, bundled as an application
+ *   build would bundle it. tsx also compiles with esbuild's keepNames, which wraps every function made
+ *   at run time in a call defining its name: the engine makes no closure per point or per firing.
  *
  * Run: npx tsx bench/nelson-1m.ts
  */
+import { spawnSync } from "node:child_process";
+import { rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
 import { NELSON_RULES } from "../shared/constants";
 import { createRng } from "../src/spc/random";
 import { evaluateRules } from "../src/spc/rules";
 import type { StatisticSeries } from "../src/spc/types";
 
+const BUNDLED = "NELSON_BENCH_BUNDLED";
+if (process.env[BUNDLED] === undefined) {
+  const outfile = path.join(tmpdir(), `nelson-1m-${process.pid}.mjs`);
+  const { buildSync } = await import("esbuild");
+  buildSync({
+    entryPoints: [fileURLToPath(import.meta.url)],
+    bundle: true,
+    platform: "node",
+    format: "esm",
+    outfile,
+    external: ["esbuild"],
+    logLevel: "warning",
+  });
+  const child = spawnSync(process.execPath, [outfile], { stdio: "inherit", env: { ...process.env, [BUNDLED]: "1" } });
+  rmSync(outfile);
+  process.exit(child.status ?? 1);
+}
+
 const POINTS = 1_000_000;
-const WARM_UP = 5;
-const REPETITIONS = 21;
+const WARM_UP = 10;
+const REPETITIONS = 41;
 const MAXIMUM_RATIO = 10;
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)]!;
+interface Sample {
+  readonly cpu: number;
+  readonly wall: number;
 }
 
 const cpuMilliseconds = (usage: NodeJS.CpuUsage): number => (usage.user + usage.system) / 1000;
 
-/** Median CPU and wall times in milliseconds of `run` after warm-up; `run` returns a value so it is not optimised away. */
-function time(run: () => number): { cpu: number; wall: number; result: number } {
-  let result = 0;
-  for (let repetition = 0; repetition < WARM_UP; repetition++) result += run();
-  const cpu: number[] = [];
-  const wall: number[] = [];
-  for (let repetition = 0; repetition < REPETITIONS; repetition++) {
-    const startedCpu = process.cpuUsage();
-    const startedWall = performance.now();
-    result += run();
-    wall.push(performance.now() - startedWall);
-    cpu.push(cpuMilliseconds(process.cpuUsage(startedCpu)));
-  }
-  return { cpu: median(cpu), wall: median(wall), result };
+function measure(run: () => number): { sample: Sample; result: number } {
+  const startedCpu = process.cpuUsage();
+  const startedWall = performance.now();
+  const result = run();
+  const wall = performance.now() - startedWall;
+  return { sample: { cpu: cpuMilliseconds(process.cpuUsage(startedCpu)), wall }, result };
+}
+
+function summary(samples: readonly Sample[]): { min: Sample; median: Sample } {
+  const sorted = (values: number[]) => values.sort((a, b) => a - b);
+  const cpu = sorted(samples.map((sample) => sample.cpu));
+  const wall = sorted(samples.map((sample) => sample.wall));
+  const middle = Math.floor(samples.length / 2);
+  return { min: { cpu: cpu[0]!, wall: wall[0]! }, median: { cpu: cpu[middle]!, wall: wall[middle]! } };
 }
 
 const rng = createRng(20261202);
@@ -63,20 +100,39 @@ function sum(values: Float64Array): number {
   return total;
 }
 
-const bare = time(() => sum(points));
-let signalCount = 0;
-const rules = time(() => {
-  signalCount = evaluateRules(series, NELSON_RULES).signals.length;
-  return signalCount;
-});
+const bareRun = (): number => sum(points);
+const rulesRun = (): number => evaluateRules(series, NELSON_RULES).signals.length;
 
-const ratio = rules.cpu / bare.cpu;
-const format = (timing: { cpu: number; wall: number }) =>
-  `${timing.cpu.toFixed(3)} ms CPU, ${timing.wall.toFixed(3)} ms wall (medians of ${REPETITIONS})`;
-console.log(`points: ${POINTS.toLocaleString("en")} individuals, seeded in-control normal data`);
+// Results are accumulated and printed so that no run can be optimised away.
+let checksum = 0;
+for (let repetition = 0; repetition < WARM_UP; repetition++) checksum += bareRun() + rulesRun();
+const bareSamples: Sample[] = [];
+const rulesSamples: Sample[] = [];
+let signalCount = 0;
+for (let repetition = 0; repetition < REPETITIONS; repetition++) {
+  const bare = measure(bareRun);
+  bareSamples.push(bare.sample);
+  checksum += bare.result;
+  const rules = measure(rulesRun);
+  rulesSamples.push(rules.sample);
+  signalCount = rules.result;
+}
+
+const bare = summary(bareSamples);
+const rules = summary(rulesSamples);
+const ratio = rules.min.cpu / bare.min.cpu;
+const format = ({ min, median }: { min: Sample; median: Sample }) =>
+  `min ${min.cpu.toFixed(3)} ms CPU, ${min.wall.toFixed(3)} ms wall; median ${median.cpu.toFixed(3)} ms CPU, ${median.wall.toFixed(3)} ms wall`;
+console.log(`points: ${POINTS.toLocaleString("en")} individuals, seeded in-control normal data (checksum ${checksum.toFixed(3)})`);
+console.log(`loaded as: an esbuild bundle of this file run by plain node ${process.version}`);
+console.log(`repetitions: ${REPETITIONS}, alternating, after ${WARM_UP} warm-up runs of each`);
 console.log(`bare sum pass:          ${format(bare)}`);
-console.log(`nelson-1..8 evaluation: ${format(rules)}, ${signalCount} signals`);
-console.log(`ratio (CPU): ${ratio.toFixed(2)} (limit ${MAXIMUM_RATIO}); ratio (wall): ${(rules.wall / bare.wall).toFixed(2)}`);
+console.log(`nelson-1..8 evaluation: ${format(rules)}; ${signalCount} signals`);
+console.log(
+  `ratio on the minimum CPU time (least disturbed estimate): ${ratio.toFixed(2)} (limit ${MAXIMUM_RATIO}); ` +
+    `on the minimum wall time: ${(rules.min.wall / bare.min.wall).toFixed(2)}; ` +
+    `on median CPU time: ${(rules.median.cpu / bare.median.cpu).toFixed(2)}`,
+);
 if (ratio > MAXIMUM_RATIO) {
   console.error(`FAIL: the rules take ${ratio.toFixed(2)} times the bare pass, above ${MAXIMUM_RATIO}`);
   process.exitCode = 1;

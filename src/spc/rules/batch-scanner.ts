@@ -44,8 +44,9 @@ const WORD = 32;
  * `current` moved `by` points later (1 ≤ by ≤ 31): bit j then says what bit j − by said, the bits moved
  * past the start of the word coming from the end of `previous` (the word of the 32 points before).
  */
-const carried = (current: number, previous: number, by: number): number =>
-  (current << by) | (previous >>> (WORD - by));
+function carried(current: number, previous: number, by: number): number {
+  return (current << by) | (previous >>> (32 - by));
+}
 
 /** The `count` (≤ 31) bits ending at bit `bit` of `current`, the earlier ones from `previous`, as the low bits. */
 function bitsEndingAt(current: number, previous: number, bit: number, count: number): number {
@@ -54,12 +55,25 @@ function bitsEndingAt(current: number, previous: number, bit: number, count: num
   return window & ((1 << count) - 1);
 }
 
+/** Whether the `count` points ending at bit `bit` hold one above and one below the centre line. */
+function bothSides(
+  above: number,
+  aboveBefore: number,
+  below: number,
+  belowBefore: number,
+  bit: number,
+  count: number,
+): boolean {
+  return bitsEndingAt(above, aboveBefore, bit, count) !== 0 && bitsEndingAt(below, belowBefore, bit, count) !== 0;
+}
+
 /**
  * 2 of 3 beyond a boundary with the newest among them: `newest` the condition word, `before` the previous
  * word, `validOne` whether the point before is present (a missing point restarts the window).
  */
-const twoOfThree = (newest: number, before: number, validOne: number): number =>
-  newest & (carried(newest, before, 1) | (carried(newest, before, 2) & validOne));
+function twoOfThree(newest: number, before: number, validOne: number): number {
+  return newest & (carried(newest, before, 1) | (carried(newest, before, 2) & validOne));
+}
 
 /** 4 of 5 with the newest among them; `validOne..` whether the 1, 2, 3 points before are all present. */
 function fourOfFive(newest: number, before: number, validOne: number, validOneTwo: number, validOneToThree: number): number {
@@ -177,8 +191,10 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
   const lowerOne = firstKnown && lowerOneDefined ? center - firstSigma : Number.NEGATIVE_INFINITY;
   const lowerTwo = firstKnown && center - 2 * firstSigma >= floor ? center - 2 * firstSigma : Number.NEGATIVE_INFINITY;
 
-  for (let base = 0; base < length; base += WORD) {
-    const count = Math.min(WORD, length - base);
+  // Module constants read in the loop cost a context load and a check that they are initialised.
+  const word = WORD;
+  for (let base = 0; base < length; base += word) {
+    const count = Math.min(word, length - base);
     let above = 0;
     let below = 0;
     let beyondOneUp = 0;
@@ -227,7 +243,7 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
       beyondTwoDown = zones[ZONE_BEYOND_TWO_DOWN]!;
       notWithin = zones[ZONE_NOT_WITHIN]!;
     }
-    const present = count === WORD ? -1 : (1 << count) - 1;
+    const present = count === word ? -1 : (1 << count) - 1;
     const valid = present & ~invalid;
 
     // n in a row on one side: runs of 2, 4, 8 by doubling, then 9.
@@ -306,10 +322,12 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
         ((twoOfThreeBeyond >>> bit) & 1) * PATTERN_TWO_OF_THREE +
         ((fourOfFiveBeyond >>> bit) & 1) * PATTERN_FOUR_OF_FIVE;
       // Nelson 7 and 8 need a point above and one below the centre among the last 15 (8) points.
-      const bothSides = (points: number): boolean =>
-        bitsEndingAt(above, aboveBefore, bit, points) !== 0 && bitsEndingAt(below, belowBefore, bit, points) !== 0;
-      if (((withinFifteen >>> bit) & 1) === 1 && bothSides(15)) patterns |= PATTERN_FIFTEEN_WITHIN;
-      if (((beyondEight >>> bit) & 1) === 1 && bothSides(8)) patterns |= PATTERN_EIGHT_BEYOND;
+      if (((withinFifteen >>> bit) & 1) === 1 && bothSides(above, aboveBefore, below, belowBefore, bit, 15)) {
+        patterns |= PATTERN_FIFTEEN_WITHIN;
+      }
+      if (((beyondEight >>> bit) & 1) === 1 && bothSides(above, aboveBefore, below, belowBefore, bit, 8)) {
+        patterns |= PATTERN_EIGHT_BEYOND;
+      }
       if (patterns === 0) continue;
       const stretchStart =
         (patterns & (PATTERN_TWO_OF_THREE | PATTERN_FOUR_OF_FIVE)) !== 0 ? stretchStartAt(points, index) : 0;

@@ -31,9 +31,7 @@ export interface Firing {
 }
 
 const bit = (rule: RuleId): number => 1 << ruleOrder(rule);
-const WE_1 = bit("we-1");
-const NELSON_1 = bit("nelson-1");
-const LIMIT_RULES = WE_1 | NELSON_1;
+const LIMIT_RULES = bit("we-1") | bit("nelson-1");
 const RUN_RULES = ~LIMIT_RULES;
 
 /** One history: a bit per point of the longest window (15 points: 0x7fff). */
@@ -112,31 +110,62 @@ export function emitFirings(
   stretchStart: number,
   newestAbove: boolean,
 ): void {
-  const push = (rule: RuleId, windowStart: number, side?: "above" | "below"): void => {
-    if ((rules & bit(rule)) !== 0) sink(rule, index, windowStart, side);
-  };
+  // Plain calls, no closure: a closure made per call costs an allocation (and, under tsx's keepNames,
+  // a property definition) per firing.
   if ((patterns & (PATTERN_ABOVE_LIMIT | PATTERN_BELOW_LIMIT)) !== 0) {
     const side = (patterns & PATTERN_ABOVE_LIMIT) !== 0 ? "above" : "below";
-    push("we-1", index, side);
-    push("nelson-1", index, side);
+    emit(sink, rules, RULE_BIT.we1, "we-1", index, index, side);
+    emit(sink, rules, RULE_BIT.nelson1, "nelson-1", index, index, side);
   }
   const side = newestAbove ? "above" : "below";
   if ((patterns & PATTERN_EIGHT_ON_ONE_SIDE) !== 0) {
-    push("we-4", index - 7, side);
-    if ((patterns & PATTERN_NINE_ON_ONE_SIDE) !== 0) push("nelson-2", index - 8, side);
+    emit(sink, rules, RULE_BIT.we4, "we-4", index, index - 7, side);
+    if ((patterns & PATTERN_NINE_ON_ONE_SIDE) !== 0) emit(sink, rules, RULE_BIT.nelson2, "nelson-2", index, index - 8, side);
   }
-  if ((patterns & PATTERN_FIVE_STEPS_ONE_WAY) !== 0) push("nelson-3", index - 5);
-  if ((patterns & PATTERN_THIRTEEN_ALTERNATIONS) !== 0) push("nelson-4", index - 13);
+  if ((patterns & PATTERN_FIVE_STEPS_ONE_WAY) !== 0) emit(sink, rules, RULE_BIT.nelson3, "nelson-3", index, index - 5, undefined);
+  if ((patterns & PATTERN_THIRTEEN_ALTERNATIONS) !== 0) {
+    emit(sink, rules, RULE_BIT.nelson4, "nelson-4", index, index - 13, undefined);
+  }
   if ((patterns & PATTERN_TWO_OF_THREE) !== 0) {
-    push("we-2", Math.max(stretchStart, index - 2), side);
-    push("nelson-5", Math.max(stretchStart, index - 2), side);
+    const windowStart = Math.max(stretchStart, index - 2);
+    emit(sink, rules, RULE_BIT.we2, "we-2", index, windowStart, side);
+    emit(sink, rules, RULE_BIT.nelson5, "nelson-5", index, windowStart, side);
   }
   if ((patterns & PATTERN_FOUR_OF_FIVE) !== 0) {
-    push("we-3", Math.max(stretchStart, index - 4), side);
-    push("nelson-6", Math.max(stretchStart, index - 4), side);
+    const windowStart = Math.max(stretchStart, index - 4);
+    emit(sink, rules, RULE_BIT.we3, "we-3", index, windowStart, side);
+    emit(sink, rules, RULE_BIT.nelson6, "nelson-6", index, windowStart, side);
   }
-  if ((patterns & PATTERN_FIFTEEN_WITHIN) !== 0) push("nelson-7", index - 14);
-  if ((patterns & PATTERN_EIGHT_BEYOND) !== 0) push("nelson-8", index - 7);
+  if ((patterns & PATTERN_FIFTEEN_WITHIN) !== 0) emit(sink, rules, RULE_BIT.nelson7, "nelson-7", index, index - 14, undefined);
+  if ((patterns & PATTERN_EIGHT_BEYOND) !== 0) emit(sink, rules, RULE_BIT.nelson8, "nelson-8", index, index - 7, undefined);
+}
+
+/** Each rule's bit in a rule mask, looked up once. */
+const RULE_BIT = {
+  we1: bit("we-1"),
+  we2: bit("we-2"),
+  we3: bit("we-3"),
+  we4: bit("we-4"),
+  nelson1: bit("nelson-1"),
+  nelson2: bit("nelson-2"),
+  nelson3: bit("nelson-3"),
+  nelson4: bit("nelson-4"),
+  nelson5: bit("nelson-5"),
+  nelson6: bit("nelson-6"),
+  nelson7: bit("nelson-7"),
+  nelson8: bit("nelson-8"),
+};
+
+function emit(
+  sink: FiringSink,
+  rules: number,
+  ruleBit: number,
+  rule: RuleId,
+  index: number,
+  windowStart: number,
+  side: "above" | "below" | undefined,
+): void {
+  if ((rules & ruleBit) !== 0) sink(rule, index, windowStart, side);
 }
 
 export class RuleScanner {
