@@ -13,6 +13,11 @@
  * depends on noise (on noisy data the flags are coin flips, and mispredicted branches would cost several
  * times the rest), no allocation except one small object per firing, no window rescanned.
  *
+ * Two forms exist for speed only: this scanner is the definition, used as is by the incremental form and
+ * the rule stream; the batch evaluation runs batch-scanner.ts, which decides 32 points at once with
+ * bitwise operations (issue 3's speed target) and is held equal to this scanner, firing for firing, by a
+ * property test (test/unit/spc/rules/batch-scanner.test.ts). Both build firings through `emitFirings`.
+ *
  * The state is bounded by construction: whether a rule fires at point i, and where its window starts,
  * depends only on the points i − 14 .. i, so a scanner fed those points alone gives the same answer as
  * one fed the whole history.
