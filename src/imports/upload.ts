@@ -109,12 +109,12 @@ export async function handleImportUpload(request: Request, context: TRouteContex
       const send = (message: TImportMessage) => controller.enqueue(encoder.encode(`${JSON.stringify(message)}\n`));
       let sqlite: ReturnType<typeof openImportDatabase> | undefined;
       try {
-        const totalBytes = (await stat(upload.file)).size;
+        const totalBytes = (await stat(/*turbopackIgnore: true*/ upload.file)).size;
         let lastSent = 0;
         sqlite = openImportDatabase(environment().databaseFile);
         const result = await importCsv(await apiDatabase(), sqlite, {
           characteristicId,
-          source: createReadStream(upload.file),
+          source: createReadStream(/*turbopackIgnore: true*/ upload.file),
           options,
           now: new Date(),
           onProgress: ({ bytesRead, rowsRead }) => {

@@ -2,7 +2,7 @@
 // of the demo cap-height series with a planted shift (made by the demo generator, src/demo) is chosen,
 // previewed, mapped and imported; the progress bar shows real progress; the summary reports the new
 // subgroups and the signals they raised; the chart page then lists signals on the imported points.
-import { mkdtemp, rm, writeFile } from "node:fs/promises";
+import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import type { Page } from "playwright-core";
@@ -78,12 +78,14 @@ describe("CSV import in the browser", () => {
       }).observe(document.body, { subtree: true, childList: true, attributes: true, characterData: true });
     });
     await page.getByRole("button", { name: "Import", exact: true }).click();
+    await mkdir(path.join(process.cwd(), "test-results"), { recursive: true });
     const summary = page.locator("#outcome-heading + p");
     await summary.waitFor({ timeout: 60_000 });
     const text = (await summary.textContent()) ?? "";
     expect(text, text).toMatch(new RegExp(`^Imported: ${IMPORTED} subgroups added, \\d+ signals? on the new points\\.$`));
     expect(Number(/(\d+) signals? on the new points/.exec(text)?.[1])).toBeGreaterThan(0);
 
+    await page.screenshot({ path: path.join(process.cwd(), "test-results", "import.png"), fullPage: true });
     const progressSeen = await page.evaluate(() => (window as unknown as { progressSeen: { value: number; label: string }[] }).progressSeen);
     expect(progressSeen.length).toBeGreaterThan(0);
     expect(progressSeen.some(({ value, label }) => value > 0 && /^(Sending the file|Reading and checking rows): \d+%/.test(label))).toBe(true);
@@ -92,6 +94,8 @@ describe("CSV import in the browser", () => {
     await page.getByRole("link", { name: "Open the chart" }).click();
     await page.waitForURL(new RegExp(`/characteristics/${id}$`));
     await page.waitForLoadState("networkidle");
+    await page.screenshot({ path: path.join(process.cwd(), "test-results", "import-chart.png"), fullPage: true });
+    expect(await page.getByRole("heading", { level: 1 }).textContent(), app.serverOutput()).toMatch(/cap height/i);
     // Signals listed on the chart page whose last point is one of the imported points.
     const listed = await page.locator(".signal-item").allTextContents();
     const firstImported = Number(/(\d[\d,]*) subgroups/.exec((await page.locator(".facts-line").textContent()) ?? "")?.[1]?.replaceAll(",", "")) - IMPORTED;
