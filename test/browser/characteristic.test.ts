@@ -1,0 +1,88 @@
+// A demo characteristic's page on the production build, in headless Chromium against a fresh demo plant:
+// the verdict above the chart, the chart with its signal markers and limit lines, the limit versions
+// table; then one subgroup entered by hand, far outside the limits, answered at once with the rule in words.
+import { mkdir } from "node:fs/promises";
+import path from "node:path";
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { startApp, type RunningApp } from "./production-server";
+
+let app: RunningApp | undefined;
+let page: Page;
+const browserProblems: string[] = [];
+
+beforeAll(async () => {
+  app = await startApp("demo plant");
+  page = await app.browser.newPage({ viewport: { width: 1600, height: 1000 } });
+  page.on("console", (message) => {
+    if (message.type() === "error") browserProblems.push(`console: ${message.text()}`);
+  });
+  page.on("pageerror", (error) => browserProblems.push(`page error: ${error.message}`));
+  const response = await page.goto(app.baseUrl, { waitUntil: "networkidle" });
+  expect(response?.status(), app.serverOutput()).toBe(200);
+});
+
+afterAll(async () => {
+  await app?.stop();
+});
+
+describe("characteristic page", () => {
+  test("the overview links to the chart page, which answers first, then draws the chart with signals and the limit versions", async () => {
+    await page.getByRole("link", { name: /closure weight/i }).first().click();
+    await page.waitForURL(/\/characteristics\/\d+$/);
+    await page.waitForLoadState("networkidle");
+    expect(await page.getByRole("heading", { level: 1 }).textContent()).toMatch(/closure weight/i);
+    // The verdict comes before the chart, in words.
+    const verdict = (await page.locator(".verdict-headline").textContent()) ?? "";
+    expect(verdict).toMatch(/^(In control|Out of control)/);
+    expect(await page.locator(".verdict-detail").textContent()).toMatch(/open signals?, latest: .+ \((we|nelson)-\d\) at /);
+    // Recharts has drawn the points, the stepped limits and at least one signal triangle.
+    // Attached, not "visible": a flat limit line has an empty bounding box.
+    await page.locator(".chart-panel svg .recharts-line-curve").first().waitFor({ state: "attached" });
+    expect(await page.locator(".chart-panel").count()).toBe(2);
+    expect(await page.locator(".chart-panel").first().locator(".recharts-line-curve").count()).toBeGreaterThanOrEqual(6);
+    expect(await page.locator(".chart-signals .recharts-symbols").count()).toBeGreaterThan(0);
+    // Limit versions: which version applied to which points.
+    const versions = page.getByRole("table", { name: "Limit versions" });
+    expect(await versions.locator("tbody tr").count()).toBeGreaterThanOrEqual(1);
+    expect(await versions.locator("tbody tr").first().textContent()).toMatch(/v1\s*0 onwards/);
+    expect(await page.locator(".signal-list li").count()).toBeGreaterThan(0);
+    const directory = path.join(process.cwd(), "test-results");
+    await mkdir(directory, { recursive: true });
+    await page.screenshot({ path: path.join(directory, "characteristic.png"), fullPage: true });
+  });
+
+  test("zooming refetches decimated data for the chosen range", async () => {
+    await page.getByRole("button", { name: "Last 100" }).click();
+    await expect.poll(async () => page.locator(".chart-status").textContent()).toMatch(/^Subgroups \d+–\d+ of 0–\d+/);
+    const status = (await page.locator(".chart-status").textContent()) ?? "";
+    const [, from, to] = /^Subgroups (\d+)–(\d+)/.exec(status) ?? [];
+    expect(Number(to) - Number(from)).toBe(99);
+  });
+
+  test("a subgroup entered by hand far above the limits is answered at once with the rule in words", async () => {
+    await page.getByRole("link", { name: "Enter a subgroup" }).click();
+    await page.waitForURL(/\/entry$/);
+    const inputs = page.locator('input[name^="values."]');
+    const count = await inputs.count();
+    expect(count).toBeGreaterThanOrEqual(1);
+    for (let index = 0; index < count; index++) await inputs.nth(index).fill("2,9");
+    await page.getByRole("button", { name: "Store and check" }).click();
+    const outcome = page.locator(".outcome");
+    await outcome.waitFor();
+    expect(await outcome.textContent()).toMatch(/Out of control at subgroup \d+\..*Rule fired: 1 point beyond the control limits \((we|nelson)-1\)/);
+    await page.screenshot({ path: path.join(process.cwd(), "test-results", "entry.png"), fullPage: true });
+  });
+
+  test("a value that is not a number is named at its field and nothing is stored", async () => {
+    await page.locator('input[name="values.0"]').fill("two");
+    await page.getByRole("button", { name: "Store and check" }).click();
+    await page.locator(".field-error").first().waitFor();
+    expect(await page.locator(".field-error").first().textContent()).toMatch(/^Value( 1)? \(g\) must be a number/);
+    expect(await page.locator('input[name="values.0"]').getAttribute("aria-invalid")).toBe("true");
+  });
+
+  test("no browser errors", () => {
+    expect(browserProblems).toEqual([]);
+  });
+});
