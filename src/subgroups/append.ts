@@ -78,6 +78,9 @@ function rejectAll(message: string, issues: TIssue[]): never {
   throw new AppError("invalid-input", message, issues);
 }
 
+/** Longest an append's transaction may run or wait for the write lock. */
+const APPEND_TIMEOUT_MS = 60_000;
+
 /** One schema per chart type and size: building a zod schema costs more than checking one subgroup. */
 const schemas = new Map<string, ReturnType<typeof subgroupSchemaFor>>();
 function schemaFor(chart: ReturnType<typeof chartTypeOf>, subgroupSize: number): ReturnType<typeof subgroupSchemaFor> {
@@ -190,125 +193,120 @@ export async function appendSubgroups(
   if (options.importBatchId !== undefined && options.source !== "import") {
     throw new Error(`appendSubgroups: an import batch was given for subgroups from the ${options.source}`);
   }
-  return db.$transaction(async (transaction) => {
-    // One read for everything the call needs: settings, limit versions, and the last stored points
-    // (the time-order check and the tail of live detection).
-    const characteristic = await transaction.characteristic.findUnique({
-      where: { id: characteristicId },
-      select: {
-        chartType: true,
-        subgroupSize: true,
-        ruleSet: true,
-        limitSets: true,
-        subgroups: { orderBy: { sequence: "desc" }, take: RULE_TAIL_LENGTH + 1, select: { ...SUMMARY_SELECT, timestamp: true } },
-      },
-    });
-    if (characteristic === null) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
-    const chart = chartTypeOf(characteristic.chartType);
-    const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
-    const rules = resolveRuleSet(characteristic.ruleSet);
-    const known = options.sourceKeys === undefined
-      ? new Set<string>()
-      : new Set(
-          (
-            await transaction.subgroup.findMany({
-              where: { characteristicId, sourceKey: { in: [...options.sourceKeys] } },
-              select: { sourceKey: true },
-            })
-          ).map((row) => row.sourceKey),
-        );
-    const chosen = parsed
-      .map((input, index) => ({ input, key: options.sourceKeys?.[index] }))
-      .filter(({ key }) => key === undefined || !known.has(key));
-    const alreadyPresent = parsed.length - chosen.length;
-    const recent = characteristic.subgroups.reverse();
-    const last = recent.at(-1) ?? null;
-    checkTimeOrder(chosen.map(({ input }) => input), last);
-    const firstSequence = (last?.sequence ?? -1) + 1;
-    const summaries = chosen.map(({ input }) => ({ ...summarize(chart, input), ewma: null, cusumUpper: null, cusumLower: null }));
+  return db.$transaction(
+    async (transaction) => {
+      // One read for everything the call needs: settings, limit versions, and the last stored points
+      // (the time-order check and the tail of live detection).
+      const characteristic = await transaction.characteristic.findUnique({
+        where: { id: characteristicId },
+        select: {
+          chartType: true,
+          subgroupSize: true,
+          ruleSet: true,
+          limitSets: true,
+          subgroups: { orderBy: { sequence: "desc" }, take: RULE_TAIL_LENGTH + 1, select: { ...SUMMARY_SELECT, timestamp: true } },
+        },
+      });
+      if (characteristic === null) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
+      const chart = chartTypeOf(characteristic.chartType);
+      const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
+      const rules = resolveRuleSet(characteristic.ruleSet);
+      const known = await storedKeys(transaction, characteristicId, options.sourceKeys ?? []);
+      const chosen = parsed
+        .map((input, index) => ({ input, key: options.sourceKeys?.[index] }))
+        .filter(({ key }) => key === undefined || !known.has(key));
+      const alreadyPresent = parsed.length - chosen.length;
+      const recent = characteristic.subgroups.reverse();
+      const last = recent.at(-1) ?? null;
+      checkTimeOrder(chosen.map(({ input }) => input), last);
+      const firstSequence = (last?.sequence ?? -1) + 1;
+      const summaries = chosen.map(({ input }) => ({ ...summarize(chart, input), ewma: null, cusumUpper: null, cusumLower: null }));
 
-    const segment = limitSegments(characteristic.limitSets).find((candidate) => candidate.from <= firstSequence && candidate.to === Infinity);
-    const notes: string[] = [];
-    let detection: TDetection | undefined;
-    if (chosen.length === 0) notes.push("every subgroup was already stored; nothing was added");
-    else if (segment === undefined) notes.push("no limits yet: the subgroups are stored and no rule was evaluated");
-    else detection = detect(chart, segment, rules, recent, summaries, firstSequence);
+      const segment = limitSegments(characteristic.limitSets).find((candidate) => candidate.from <= firstSequence && candidate.to === Infinity);
+      const notes: string[] = [];
+      let detection: TDetection | undefined;
+      if (chosen.length === 0) notes.push("every subgroup was already stored; nothing was added");
+      else if (segment === undefined) notes.push("no limits yet: the subgroups are stored and no rule was evaluated");
+      else detection = detect(chart, segment, rules, recent, summaries, firstSequence);
 
-    const state = (key: string, position: number) =>
-      detection?.statistics.find((series) => series.key === key)?.points[detection.firstNew + position] ?? null;
-    const created = await transaction.subgroup.createManyAndReturn({
-      data: chosen.map(({ input, key }, position) => ({
-        characteristicId,
-        sequence: firstSequence + position,
-        timestamp: new Date(input.timestamp),
-        sourceKey: key ?? null,
-        importBatchId: options.importBatchId ?? null,
-        ...summaries[position]!,
-        ewma: state("ewma", position),
-        cusumUpper: state("cusum-upper", position),
-        cusumLower: state("cusum-lower", position),
-        createdAt: options.now,
-      })),
-      select: { id: true, sequence: true },
-    });
-    const idOf = new Map(created.map((row) => [row.sequence, row.id]));
-    const measurements = chosen.flatMap(({ input }, position) =>
-      (input.values ?? []).map((value, order) => ({ subgroupId: idOf.get(firstSequence + position)!, position: order, value })),
-    );
-    const tags = chosen.flatMap(({ input }, position) =>
-      Object.entries(input.tags ?? {}).map(([key, value]) => ({ subgroupId: idOf.get(firstSequence + position)!, key, value })),
-    );
-    if (measurements.length > 0) await transaction.measurement.createMany({ data: measurements });
-    if (tags.length > 0) await transaction.subgroupTag.createMany({ data: tags });
+      const state = (key: string, position: number) =>
+        detection?.statistics.find((series) => series.key === key)?.points[detection.firstNew + position] ?? null;
+      const created = await transaction.subgroup.createManyAndReturn({
+        data: chosen.map(({ input, key }, position) => ({
+          characteristicId,
+          sequence: firstSequence + position,
+          timestamp: new Date(input.timestamp),
+          sourceKey: key ?? null,
+          importBatchId: options.importBatchId ?? null,
+          ...summaries[position]!,
+          ewma: state("ewma", position),
+          cusumUpper: state("cusum-upper", position),
+          cusumLower: state("cusum-lower", position),
+          createdAt: options.now,
+        })),
+        select: { id: true, sequence: true },
+      });
+      const idOf = new Map(created.map((row) => [row.sequence, row.id]));
+      const measurements = chosen.flatMap(({ input }, position) =>
+        (input.values ?? []).map((value, order) => ({ subgroupId: idOf.get(firstSequence + position)!, position: order, value })),
+      );
+      const tags = chosen.flatMap(({ input }, position) =>
+        Object.entries(input.tags ?? {}).map(([key, value]) => ({ subgroupId: idOf.get(firstSequence + position)!, key, value })),
+      );
+      if (measurements.length > 0) await transaction.measurement.createMany({ data: measurements });
+      if (tags.length > 0) await transaction.subgroupTag.createMany({ data: tags });
 
-    const touched =
-      detection === undefined || segment === undefined
-        ? []
-        : await storeFirings(transaction, characteristicId, segment.limitSet.id, segment.from, detection.firings, options.now);
-    const lastSequence = firstSequence + chosen.length - 1;
-    const signals =
-      touched.length === 0 || segment === undefined
-        ? touched
-        : await readLivePatterns(
-            transaction,
-            characteristicId,
-            chart,
-            segment.limitSet,
-            segment.from,
-            lastSequence,
-            touched,
-            await segmentSignalsFrom(transaction, characteristicId, segment.limitSet.id, lastSequence + 1 - LIVE_PATTERN_WINDOW),
-          );
-    const firedAt = new Map<number, RuleId[]>();
-    for (const firing of detection?.firings ?? []) {
-      const sequence = segment!.from + firing.index;
-      const rulesHere = firedAt.get(sequence) ?? [];
-      if (!rulesHere.includes(firing.rule)) rulesHere.push(firing.rule);
-      firedAt.set(sequence, rulesHere);
-    }
-    const stored = chosen.map(({ input }, position): TStoredSubgroup => {
-      const sequence = firstSequence + position;
+      const touched =
+        detection === undefined || segment === undefined
+          ? []
+          : await storeFirings(transaction, characteristicId, segment.limitSet.id, segment.from, detection.firings, options.now);
+      const lastSequence = firstSequence + chosen.length - 1;
+      const signals =
+        touched.length === 0 || segment === undefined
+          ? touched
+          : await readLivePatterns(
+              transaction,
+              characteristicId,
+              chart,
+              segment.limitSet,
+              segment.from,
+              lastSequence,
+              touched,
+              await segmentSignalsFrom(transaction, characteristicId, segment.limitSet.id, lastSequence + 1 - LIVE_PATTERN_WINDOW),
+            );
+      const firedAt = new Map<number, RuleId[]>();
+      for (const firing of detection?.firings ?? []) {
+        const sequence = segment!.from + firing.index;
+        const rulesHere = firedAt.get(sequence) ?? [];
+        if (!rulesHere.includes(firing.rule)) rulesHere.push(firing.rule);
+        firedAt.set(sequence, rulesHere);
+      }
+      const stored = chosen.map(({ input }, position): TStoredSubgroup => {
+        const sequence = firstSequence + position;
+        return {
+          id: idOf.get(sequence)!,
+          sequence,
+          timestamp: new Date(input.timestamp),
+          values: input.values ?? null,
+          count: summaries[position]!.count,
+          size: summaries[position]!.size,
+          tags: input.tags ?? {},
+          mean: summaries[position]!.mean,
+          spread: summaries[position]!.spread,
+          firedRules: firedAt.get(sequence) ?? [],
+        };
+      });
       return {
-        id: idOf.get(sequence)!,
-        sequence,
-        timestamp: new Date(input.timestamp),
-        values: input.values ?? null,
-        count: summaries[position]!.count,
-        size: summaries[position]!.size,
-        tags: input.tags ?? {},
-        mean: summaries[position]!.mean,
-        spread: summaries[position]!.spread,
-        firedRules: firedAt.get(sequence) ?? [],
+        stored,
+        signals,
+        alreadyPresent,
+        limits: segment === undefined ? null : { limitSetId: segment.limitSet.id, version: segment.limitSet.version },
+        notes,
       };
-    });
-    return {
-      stored,
-      signals,
-      alreadyPresent,
-      limits: segment === undefined ? null : { limitSetId: segment.limitSet.id, version: segment.limitSet.version },
-      notes,
-    };
-  });
+    },
+    // A thousand subgroups with their measurements take seconds on a loaded machine; Prisma's default is 5 s.
+    { timeout: APPEND_TIMEOUT_MS, maxWait: APPEND_TIMEOUT_MS },
+  );
 }
 
 /**
@@ -371,6 +369,22 @@ async function storeFirings(
   }
   const rows = await transaction.signal.findMany({ where: { id: { in: touched } }, orderBy: [{ startSequence: "asc" }, { id: "asc" }], select: SIGNAL_VIEW });
   return rows.map(toSignalView);
+}
+
+/** Keys bound per query: well under SQLite's limit on bound parameters. */
+const KEYS_PER_QUERY = 500;
+
+/** Which of `keys` are already stored for the characteristic. */
+async function storedKeys(transaction: Prisma.TransactionClient, characteristicId: number, keys: readonly string[]): Promise<Set<string | null>> {
+  const known = new Set<string | null>();
+  for (let first = 0; first < keys.length; first += KEYS_PER_QUERY) {
+    const rows = await transaction.subgroup.findMany({
+      where: { characteristicId, sourceKey: { in: keys.slice(first, first + KEYS_PER_QUERY) } },
+      select: { sourceKey: true },
+    });
+    for (const row of rows) known.add(row.sourceKey);
+  }
+  return known;
 }
 
 /** The signals of a limit set that end at or after `from`, for live pattern reading. */

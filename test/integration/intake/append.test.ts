@@ -55,13 +55,17 @@ describe("appending subgroups", () => {
 
   test("keyed rows: a repeated import adds nothing and says how many were already there", async () => {
     const characteristic = await createCharacteristic(db, { processId, name: "Keyed weight", unit: "g", chartType: "imr", subgroupSize: 1 });
-    const inputs = seededSubgroups("imr", 5, 3);
+    // As many as one API request may carry, more keys than SQLite binds in one statement.
+    const inputs = seededSubgroups("imr", 1000, 3);
     const keys = inputs.map((_, index) => `file.csv:${index + 2}`);
-    const first = await appendSubgroups(db, characteristic.id, inputs, { source: "import", now: NOW, sourceKeys: keys });
-    expect(first.stored).toHaveLength(5);
+    const first = await appendSubgroups(db, characteristic.id, inputs.slice(0, 600), { source: "import", now: NOW, sourceKeys: keys.slice(0, 600) });
+    expect(first.stored).toHaveLength(600);
     const again = await appendSubgroups(db, characteristic.id, inputs, { source: "import", now: NOW, sourceKeys: keys });
-    expect(again).toMatchObject({ stored: [], alreadyPresent: 5, notes: ["every subgroup was already stored; nothing was added"] });
-    expect(await db.subgroup.count({ where: { characteristicId: characteristic.id } })).toBe(5);
+    expect(again).toMatchObject({ alreadyPresent: 600 });
+    expect(again.stored.map((subgroup) => subgroup.sequence)).toEqual(Array.from({ length: 400 }, (_, index) => 600 + index));
+    const third = await appendSubgroups(db, characteristic.id, inputs, { source: "import", now: NOW, sourceKeys: keys });
+    expect(third).toMatchObject({ stored: [], alreadyPresent: 1000, notes: ["every subgroup was already stored; nothing was added"] });
+    expect(await db.subgroup.count({ where: { characteristicId: characteristic.id } })).toBe(1000);
   });
 
   test("a continued firing extends the open signal instead of creating a new one", async () => {
