@@ -25,6 +25,7 @@ import { decimate } from "./decimate";
 import { originalStatistic } from "./originals";
 import {
   DEFAULT_MAX_POINTS,
+  LISTED_SIGNALS,
   STATISTIC_LABELS,
   type TChartEvent,
   type TChartPoint,
@@ -77,9 +78,10 @@ const SQL = {
     'SELECT "id", "version", "center", "sigma", "subgroupSize", "ewmaLambda", "ewmaWidth", "cusumK", "cusumH", ' +
     '"baselineStart", "baselineEnd", "baselineUsed", "appliesFrom" FROM "LimitSet" WHERE "characteristicId" = ? ORDER BY "version"',
   // The kept sequences go in as one JSON array: one statement, whatever their number.
-  summaries:
+  timestamps: 'SELECT "sequence", "timestamp" FROM "Subgroup" WHERE "characteristicId" = ? AND "sequence" IN (SELECT "value" FROM json_each(?))',
+  summaryAt:
     'SELECT "id", "sequence", "timestamp", "mean", "spread", "count", "size", "ewma", "cusumUpper", "cusumLower" FROM "Subgroup" ' +
-    'WHERE "characteristicId" = ? AND "sequence" IN (SELECT "value" FROM json_each(?))',
+    'WHERE "characteristicId" = ? AND "sequence" = ?',
   signals:
     'SELECT s."id", s."rule", s."statistic", s."startSequence", s."endSequence", s."firing", s."side", s."pattern", ' +
     's."status", s."detectedAt", l."version" AS "limitSetVersion" FROM "Signal" s JOIN "LimitSet" l ON l."id" = s."limitSetId" ' +
@@ -171,10 +173,10 @@ function sameLimits(first: TPointLimits, second: TPointLimits): boolean {
   );
 }
 
-/** The summary rows of the given sequences, by sequence. */
-function readSummaries(database: Database.Database, characteristicId: number, sequences: readonly number[]): Map<number, TSummaryRow> {
-  const rows = database.prepare(SQL.summaries).all(characteristicId, JSON.stringify(sequences)) as TSummaryRow[];
-  return new Map(rows.map((row) => [row.sequence, row]));
+/** The stored time of each of the given sequences. */
+function readTimestamps(database: Database.Database, characteristicId: number, sequences: readonly number[]): Map<number, string> {
+  const rows = database.prepare(SQL.timestamps).raw(true).all(characteristicId, JSON.stringify(sequences)) as [number, string][];
+  return new Map(rows);
 }
 
 /**
@@ -186,11 +188,12 @@ function readSummaries(database: Database.Database, characteristicId: number, se
  */
 function limitCalculator(chart: ChartType) {
   const known = new Map<string, TPointLimits[]>();
-  return (segment: TSegment<TLimitSetRow>, sequence: number, row: TSummaryRow): TPointLimits[] => {
+  return (segment: TSegment<TLimitSetRow>, sequence: number, rowAt: (sequence: number) => TSummaryRow): TPointLimits[] => {
     const firstIndex = sequence - segment.from;
-    const key = `${segment.limitSet.id}|${chart === "p" || chart === "u" ? row.size : ""}|${chart === "ewma" ? firstIndex : ""}`;
+    const key = `${segment.limitSet.id}|${chart === "p" || chart === "u" ? rowAt(sequence).size : ""}|${chart === "ewma" ? firstIndex : ""}`;
     let limits = known.get(key);
     if (limits === undefined) {
+      const row = rowAt(sequence);
       const parameters = chartParametersOf(chart, segment.limitSet);
       limits = summarySeries(chart, parameters, [row], { firstIndex, previous: row }).map(limitsAt);
       known.set(key, limits);
@@ -241,6 +244,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       range: null,
       maxPoints,
       statistics: keys.map((key) => ({ key, label: STATISTIC_LABELS[key], points: [], segments: [], pointsInRange: 0, decimated: false })),
+      signalCounts: { total: 0, open: 0 },
       signals: [],
       events: [],
     };
@@ -286,7 +290,10 @@ export function loadChartView(database: Database.Database, characteristicId: num
     const keptSequences = [...new Set(decimations.flatMap((decimation) => decimation.indices))]
       .sort((a, b) => a - b)
       .map((index) => index + from);
-    const summaries = readSummaries(database, characteristicId, keptSequences);
+    const timestamps = readTimestamps(database, characteristicId, keptSequences);
+    // Whole rows only where needed: a new case of limits, a corrected point.
+    const summaryStatement = database.prepare(SQL.summaryAt);
+    const rowAt = (sequence: number) => summaryStatement.get(characteristicId, sequence) as TSummaryRow;
     const limitsOf = limitCalculator(chart);
 
     const statistics: TStatisticView[] = keys.map((key, statisticIndex) => {
@@ -301,19 +308,18 @@ export function loadChartView(database: Database.Database, characteristicId: num
       }
       const points: TChartPoint[] = decimation.indices.map((index) => {
         const sequence = index + from;
-        const row = summaries.get(sequence)!;
         const segment = segmentAtSequence(sequence);
         const value = plotted[index]!;
         const corrections = correctionsAt.get(sequence) ?? [];
         return {
           sequence,
-          timestamp: isoTime(row.timestamp),
+          timestamp: isoTime(timestamps.get(sequence)!),
           value: Number.isNaN(value) ? null : value,
           version: segment?.limitSet.version ?? null,
-          limits: segment === undefined ? null : limitsOf(segment, sequence, row)[statisticIndex]!,
+          limits: segment === undefined ? null : limitsOf(segment, sequence, rowAt)[statisticIndex]!,
           firedRules: firedAt.get(key)!.get(sequence) ?? [],
           bucket: bucketOf.get(index) ?? null,
-          originalValue: statisticIndex === 0 ? originalOf(database, chart, row, corrections) : null,
+          originalValue: statisticIndex === 0 ? originalOf(database, chart, rowAt, sequence, corrections) : null,
           corrections: corrections.map(toPointCorrection),
         };
       });
@@ -328,10 +334,11 @@ export function loadChartView(database: Database.Database, characteristicId: num
     });
 
     const timestampOf = (sequence: number): string | null => {
-      const row = summaries.get(sequence) ?? (database.prepare(SQL.timestampAt).get(characteristicId, sequence) as { timestamp: string } | undefined);
-      return row === undefined ? null : isoTime(row.timestamp);
+      const stored = timestamps.get(sequence) ?? (database.prepare(SQL.timestampAt).pluck(true).get(characteristicId, sequence) as string | undefined);
+      return stored === undefined ? null : isoTime(stored);
     };
-    const signals: TChartSignal[] = signalRows.map((row) => {
+    const latestRows = [...signalRows].sort((a, b) => b.endSequence - a.endSequence || b.id - a.id).slice(0, LISTED_SIGNALS);
+    const signals: TChartSignal[] = latestRows.map((row) => {
       const firing = JSON.parse(row.firing) as number[];
       const lastFiring = firing.at(-1);
       return {
@@ -356,14 +363,22 @@ export function loadChartView(database: Database.Database, characteristicId: num
       history: { first, last },
       range: { from, to },
       statistics,
+      signalCounts: { total: signalRows.length, open: signalRows.filter((row) => row.status === "new").length },
       signals,
-      events: eventsIn(database, characteristic, summaries.get(from)!.timestamp, summaries.get(to)!.timestamp),
+      events: eventsIn(database, characteristic, timestamps.get(from)!, timestamps.get(to)!),
     };
   })();
 }
 
-function originalOf(database: Database.Database, chart: ChartType, row: TSummaryRow, corrections: readonly TCorrectionRow[]): number | null {
+function originalOf(
+  database: Database.Database,
+  chart: ChartType,
+  rowAt: (sequence: number) => TSummaryRow,
+  sequence: number,
+  corrections: readonly TCorrectionRow[],
+): number | null {
   if (corrections.length === 0) return null;
+  const row = rowAt(sequence);
   const values = database.prepare(SQL.measurements).pluck(true).all(row.id) as number[];
   return originalStatistic(
     chart,

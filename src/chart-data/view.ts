@@ -10,6 +10,8 @@ import { PATTERN_KINDS } from "@/shared/patterns";
 /** Default and largest number of points per statistic the server sends for the visible range. */
 export const DEFAULT_MAX_POINTS = 2000;
 export const LARGEST_MAX_POINTS = 10_000;
+/** Signals listed in the view, the latest first: the points of all of them are marked anyway. */
+export const LISTED_SIGNALS = 100;
 
 /** What each plotted statistic is, in words. */
 export const STATISTIC_LABELS: Record<StatisticKey, string> = {
@@ -134,6 +136,8 @@ export const ZChartView = z.object({
   maxPoints: z.number().int(),
   /** The plotted statistic first, then the spread statistic where the chart has one. */
   statistics: z.array(ZStatisticView),
+  /** Signals touching the range: how many, how many still open ("new"), and the latest ones (by last point). */
+  signalCounts: z.object({ total: z.number().int(), open: z.number().int() }),
   signals: z.array(ZChartSignal),
   events: z.array(ZChartEvent),
 });

@@ -19,8 +19,9 @@ export function summarizeChart(view: TChartView): TChartSummary {
   if (!hasLimits) {
     return { headline: "No control limits yet: points are shown without a verdict", inControl: true, detail: null };
   }
-  const open = view.signals.filter((signal) => signal.status === "new");
-  const latest = [...view.signals].sort((a, b) => a.endSequence - b.endSequence || a.id - b.id).at(-1);
+  const open = view.signalCounts.open;
+  // The view lists the latest signals first.
+  const latest = view.signals[0];
   if (latest === undefined) {
     return { headline: `In control: no signal in subgroups ${view.history.first}–${view.history.last}`, inControl: true, detail: null };
   }
@@ -29,6 +30,6 @@ export function summarizeChart(view: TChartView): TChartSummary {
     ? `In control since subgroup ${latest.endSequence + 1}`
     : `Out of control at the latest subgroup (${view.history.last})`;
   const when = latest.lastFiringAt === null ? `subgroup ${latest.endSequence}` : formatTime(latest.lastFiringAt);
-  const count = open.length === 1 ? "1 open signal" : `${open.length} open signals`;
+  const count = open === 1 ? "1 open signal" : `${open} open signals`;
   return { headline, inControl, detail: `${count}, latest: ${latest.ruleText} (${latest.rule}) at ${when}` };
 }

@@ -115,7 +115,9 @@ describe("loadChartView", () => {
       }
       for (const sequence of [SECOND_VERSION_FROM - 1, SECOND_VERSION_FROM, CORRECTED]) expect(kept.has(sequence)).toBe(true);
     }
+    expect(view.signalCounts.total).toBe(stored.length);
     expect(view.signals.map((signal) => signal.id).sort()).toEqual(stored.map((signal) => signal.id).sort());
+    expect(view.signals.map((signal) => signal.endSequence)).toEqual(stored.map((signal) => signal.endSequence).sort((a, b) => b - a));
   });
 
   test("a range shows only its points, signals touching it and events inside it", () => {

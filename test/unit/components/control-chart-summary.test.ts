@@ -58,7 +58,9 @@ function view(signals: TChartSignal[], last = 9, withLimits = true): TChartView 
         decimated: false,
       },
     ],
-    signals,
+    signalCounts: { total: signals.length, open: signals.filter((signal) => signal.status === "new").length },
+    // Latest first, as loadChartView lists them.
+    signals: [...signals].sort((a, b) => b.endSequence - a.endSequence),
     events: [],
   };
 }
