@@ -6,17 +6,19 @@
  *
  * Speed: a history may hold a million points, so the full range is read as bare columns of the cached
  * per-subgroup summaries (mean, spread, count, size, EWMA and CUSUM state; no measurement is read) into
- * typed arrays through a raw better-sqlite3 connection with prepared statements, and only the kept points
- * are then read whole. Their values and limits come from `summarySeries` (src/limits/series.ts), the
- * engine's formulas applied to the cached summaries, one point at a time with the point before it, so a
- * drawn value and limit are exactly those live detection judged. All reads run in one read transaction:
- * one consistent snapshot even while subgroups arrive.
+ * typed arrays (kept between requests: ./column-cache.ts) through a raw better-sqlite3 connection with
+ * prepared statements; only the kept points' times are then read. The plotted values are the cached
+ * columns themselves (the moving range, and count / size, by the engine's arithmetic); the limits come
+ * from `summarySeries` (src/limits/series.ts), the engine's formulas on the cached summaries, once per
+ * distinct case, so a drawn value and limit are those live detection judged (the integration test checks
+ * them against `evaluateChart` on the measurements). All reads run in one read transaction: one
+ * consistent snapshot even while subgroups arrive.
  */
 import type Database from "better-sqlite3";
 import type { ChartType, RuleId, StatisticKey } from "@/shared/constants";
 import { chartTypeOf } from "@/src/characteristics/setup";
 import { AppError } from "@/src/errors";
-import { chartParametersOf, limitSegments, summarySeries, type TSegment, type TSummary } from "@/src/limits";
+import { chartParametersOf, limitSegments, segmentAt, summarySeries, type TSegment, type TSummary } from "@/src/limits";
 import type { TLimitSetParameters } from "@/src/limits/parameters";
 import { RULE_DEFINITIONS } from "@/src/spc/rules";
 import type { StatisticSeries } from "@/src/spc/types";
@@ -257,8 +259,6 @@ export function loadChartView(database: Database.Database, characteristicId: num
 
     const limitSets = database.prepare(SQL.limitSets).all(characteristicId) as TLimitSetRow[];
     const segments = limitSegments(limitSets);
-    const segmentAtSequence = (sequence: number): TSegment<TLimitSetRow> | undefined =>
-      segments.find((segment) => segment.from <= sequence && sequence < segment.to);
     const segmentStarts = new Set(segments.map((segment) => segment.from));
 
     const signalRows = database.prepare(SQL.signals).all(characteristicId, from, to) as TSignalRow[];
@@ -308,7 +308,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       }
       const points: TChartPoint[] = decimation.indices.map((index) => {
         const sequence = index + from;
-        const segment = segmentAtSequence(sequence);
+        const segment = segmentAt(segments, sequence);
         const value = plotted[index]!;
         const corrections = correctionsAt.get(sequence) ?? [];
         return {
