@@ -80,6 +80,8 @@ describe("characteristic page", () => {
     await page.locator(".field-error").first().waitFor();
     expect(await page.locator(".field-error").first().textContent()).toMatch(/^Value( 1)? \(g\) must be a number/);
     expect(await page.locator('input[name="values.0"]').getAttribute("aria-invalid")).toBe("true");
+    // What was typed stays in the form beside its problem.
+    expect(await page.locator('input[name="values.0"]').inputValue()).toBe("two");
   });
 
   test("no browser errors", () => {

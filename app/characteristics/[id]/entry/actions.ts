@@ -12,7 +12,12 @@ import { numberField, utcTimeField } from "../../setup-fields";
 
 export type TEntryState =
   | { readonly ok: null }
-  | { readonly ok: false; readonly issues: readonly { path: string; message: string }[] }
+  | {
+      readonly ok: false;
+      readonly issues: readonly { path: string; message: string }[];
+      /** What was typed, so the form shows it again beside its problems. */
+      readonly entered: Readonly<Record<string, string>>;
+    }
   | {
       readonly ok: true;
       readonly sequence: number;
@@ -36,7 +41,8 @@ export async function enterSubgroup(characteristicId: number, _previous: TEntryS
         ...(characteristic.chartType === "p" || characteristic.chartType === "np" ? { size: numberField(form, "size") } : {}),
       };
   const parsed = subgroupSchemaFor(characteristic.chartType, characteristic.subgroupSize).safeParse(input);
-  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error) };
+  const entered = Object.fromEntries([...form.entries()].map(([name, value]) => [name, String(value)]));
+  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error), entered };
   try {
     const result = await appendSubgroups(prisma, characteristicId, [parsed.data], { source: "entry", now: new Date() });
     const stored = result.stored[0]!;
@@ -50,7 +56,7 @@ export async function enterSubgroup(characteristicId: number, _previous: TEntryS
   } catch (error) {
     if (isAppError(error) && error.code !== "forbidden") {
       const issues = error.issues.map((issue) => ({ path: issue.path.replace(/^subgroups\.\d+\.?/, ""), message: issue.message }));
-      return { ok: false, issues: issues.length > 0 ? issues : [{ path: "", message: error.message }] };
+      return { ok: false, issues: issues.length > 0 ? issues : [{ path: "", message: error.message }], entered };
     }
     throw error;
   }

@@ -77,6 +77,7 @@ export function EntryForm({
 }) {
   const [state, action, pending] = useActionState(enterSubgroup.bind(null, characteristicId), { ok: null } as TEntryState);
   const issues = state.ok === false ? state.issues : [];
+  const entered = state.ok === false ? state.entered : {};
   const problemOf = (name: string) => issues.filter((issue) => issue.path === name).map((issue) => issue.message).join("; ");
   const general = issues.filter((issue) => issue.path === "" || issue.path === "values");
   const fields = fieldsFor(chartType, subgroupSize, unit);
@@ -96,7 +97,7 @@ export function EntryForm({
             id="timestamp"
             name="timestamp"
             type="datetime-local"
-            defaultValue={defaultTime}
+            defaultValue={entered.timestamp ?? defaultTime}
             required
             aria-invalid={timeProblem !== ""}
             aria-describedby={timeProblem !== "" ? "timestamp-error" : undefined}
@@ -115,6 +116,7 @@ export function EntryForm({
                   name={field.name}
                   inputMode="decimal"
                   autoComplete="off"
+                  defaultValue={entered[field.name] ?? ""}
                   autoFocus={index === 0}
                   aria-invalid={problem !== ""}
                   aria-describedby={[problem !== "" ? `${id}-error` : "", field.hint ? `${id}-hint` : ""].filter(Boolean).join(" ") || undefined}
