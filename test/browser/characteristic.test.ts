@@ -50,6 +50,7 @@ describe("characteristic page", () => {
     const directory = path.join(process.cwd(), "test-results");
     await mkdir(directory, { recursive: true });
     await page.screenshot({ path: path.join(directory, "characteristic.png"), fullPage: true });
+    await page.screenshot({ path: path.join(directory, "characteristic-top.png") });
   });
 
   test("zooming refetches decimated data for the chosen range", async () => {
