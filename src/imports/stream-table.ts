@@ -40,6 +40,8 @@ export interface TStreamSummary {
   readonly problems: readonly CsvProblem[];
 }
 
+const NO_ERRORS: readonly Papa.ParseError[] = [];
+
 function countLineBreaks(cells: readonly string[]): number {
   let breaks = 0;
   for (const cell of cells) for (let index = cell.indexOf("\n"); index !== -1; index = cell.indexOf("\n", index + 1)) breaks += 1;
@@ -99,26 +101,32 @@ export async function streamCsvRows(source: AsyncIterable<Uint8Array>, handlers:
   }
 
   let header: string[] | undefined;
+  const readRow = (written: string[], errors: readonly Papa.ParseError[]) => {
+    const cells = written.map((cell) => cell.trim());
+    const rowLine = line;
+    line += 1 + countLineBreaks(written);
+    if (!cells.some((cell) => cell !== "")) return;
+    const rowProblems: CsvProblem[] = errors.map((error) => ({ line: rowLine, message: describeParseError(error) }));
+    if (header === undefined) {
+      header = readHeader(cells, rowLine, rowProblems);
+      handlers.onHeader(header, rowLine, separator, rowProblems);
+      return;
+    }
+    rowsRead += 1;
+    const row = makeRow(cells, header, rowLine, separator, rowProblems);
+    handlers.onRow({ row, written, problems: rowProblems });
+  };
   await new Promise<void>((resolve, reject) => {
     Papa.parse<string[]>(Readable.from(whole()), {
       delimiter: separator,
       header: false,
       skipEmptyLines: false,
-      step: (result) => {
-        const written = result.data;
-        const cells = written.map((cell) => cell.trim());
-        const rowLine = line;
-        line += 1 + countLineBreaks(written);
-        if (!cells.some((cell) => cell !== "")) return;
-        const rowProblems: CsvProblem[] = result.errors.map((error) => ({ line: rowLine, message: describeParseError(error) }));
-        if (header === undefined) {
-          header = readHeader(cells, rowLine, rowProblems);
-          handlers.onHeader(header, rowLine, separator, rowProblems);
-          return;
-        }
-        rowsRead += 1;
-        const row = makeRow(cells, header, rowLine, separator, rowProblems);
-        handlers.onRow({ row, written, problems: rowProblems });
+      // Whole parsed chunks rather than one callback per row: papaparse's per-row result objects cost more
+      // than the rows themselves on large files. Errors carry their row's index within the chunk.
+      chunk: (result) => {
+        const errorsByRow = new Map<number, Papa.ParseError[]>();
+        for (const error of result.errors) errorsByRow.set(error.row ?? -1, [...(errorsByRow.get(error.row ?? -1) ?? []), error]);
+        result.data.forEach((written, index) => readRow(written, errorsByRow.get(index) ?? NO_ERRORS));
       },
       complete: () => resolve(),
       error: (error: Error) => reject(error),
