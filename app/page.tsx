@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { connection } from "next/server";
 import { CharacteristicCard } from "@/src/components/characteristic-card";
 import { loadCharacteristicOverview } from "@/src/characteristics/overview";
@@ -10,6 +11,11 @@ export default async function OverviewPage() {
   return (
     <>
       <h1>Characteristics</h1>
+      {processes.length > 0 && (
+        <p>
+          <Link href="/characteristics/new">Set up a new characteristic</Link>
+        </p>
+      )}
       {processes.length === 0 ? (
         <section className="empty-state" aria-labelledby="empty-heading">
           <h2 id="empty-heading">No characteristics recorded yet</h2>
