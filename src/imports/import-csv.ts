@@ -183,7 +183,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
     database.exec("COMMIT");
     if (subgroupsAdded === 0) return result;
     await reevaluateSignals(db, characteristic.id, {
-      trigger: "request",
+      trigger: "import",
       reason: `import #${batchId} of ${options.fileName}: ${subgroupsAdded} subgroups added`,
       requestedBy: "CSV import",
       now: request.now,

@@ -220,5 +220,7 @@ describe("live detection after an import", () => {
     expect(signals).toContainEqual(expect.objectContaining({ rule: "nelson-2", statistic: "x", side: "above", endSequence: 139 }));
     expect(signals.filter((signal) => signal.startSequence >= 120).every((signal) => signal.side !== "below")).toBe(true);
     expect(await harness.prisma.signalEvaluation.count({ where: { characteristicId: id } })).toBe(evaluationsBefore + 1);
+    const evaluation = await harness.prisma.signalEvaluation.findFirstOrThrow({ where: { characteristicId: id }, orderBy: { id: "desc" } });
+    expect(evaluation).toMatchObject({ trigger: "import", reason: `import #${second.batchId} of readings.csv: 40 subgroups added` });
   });
 });
