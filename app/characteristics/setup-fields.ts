@@ -2,7 +2,24 @@
 // fields are left out, numbers that do not read as numbers stay text so the schema names them.
 export type TFormIssues = readonly { path: string; message: string }[];
 
-export type TFormState = { readonly ok: null } | { readonly ok: true; readonly message: string } | { readonly ok: false; readonly issues: TFormIssues };
+export type TFormState =
+  | { readonly ok: null }
+  | { readonly ok: true; readonly message: string }
+  | {
+      readonly ok: false;
+      readonly issues: TFormIssues;
+      /** What was typed, so the form (which React resets after an action) shows it again beside its problems. */
+      readonly entered: Readonly<Record<string, string>>;
+    };
+
+export function enteredValues(form: FormData): Record<string, string> {
+  return Object.fromEntries([...form.entries()].map(([name, value]) => [name, String(value)]));
+}
+
+/** The typed value of a field after a refused submission, else the field's own default. */
+export function enteredOr(state: TFormState, name: string, fallback: string): string {
+  return state.ok === false ? (state.entered[name] ?? "") : fallback;
+}
 
 export function text(form: FormData, name: string): string | undefined {
   const value = String(form.get(name) ?? "").trim();

@@ -3,7 +3,7 @@
 import { useActionState } from "react";
 import { CHART_TYPES, CHART_TYPE_LABELS, type ChartType } from "@/shared/constants";
 import { FormField } from "./form-field";
-import type { TFormState } from "./setup-fields";
+import { enteredOr, type TFormState } from "./setup-fields";
 
 export interface TSetupValues {
   readonly processId?: number;
@@ -35,6 +35,7 @@ export function SetupForm({
   const issues = state.ok === false ? state.issues : [];
   const general = issues.filter((issue) => issue.path === "");
   const optional = (value: number | null | undefined) => (value === null || value === undefined ? "" : String(value));
+  const shown = (name: string, fallback: string) => enteredOr(state, name, fallback);
   return (
     <form action={action} className="settings-form" noValidate>
       {state.ok === true && <p role="status">{state.message}</p>}
@@ -45,7 +46,7 @@ export function SetupForm({
       ))}
       <FormField name="processId" label="Process" issues={issues}>
         {(attributes) => (
-          <select {...attributes} defaultValue={optional(values.processId)}>
+          <select {...attributes} defaultValue={shown("processId", optional(values.processId))}>
             {processes.map((process) => (
               <option key={process.id} value={process.id}>
                 {process.name}
@@ -55,14 +56,14 @@ export function SetupForm({
         )}
       </FormField>
       <FormField name="name" label="Name" issues={issues}>
-        {(attributes) => <input {...attributes} defaultValue={values.name ?? ""} />}
+        {(attributes) => <input {...attributes} defaultValue={shown("name", values.name ?? "")} />}
       </FormField>
       <FormField name="unit" label="Unit" hint="e.g. g, mm, %" issues={issues}>
-        {(attributes) => <input {...attributes} defaultValue={values.unit ?? ""} />}
+        {(attributes) => <input {...attributes} defaultValue={shown("unit", values.unit ?? "")} />}
       </FormField>
       <FormField name="chartType" label="Chart type" issues={issues}>
         {(attributes) => (
-          <select {...attributes} defaultValue={values.chartType ?? "imr"}>
+          <select {...attributes} defaultValue={shown("chartType", values.chartType ?? "imr")}>
             {CHART_TYPES.map((chartType) => (
               <option key={chartType} value={chartType}>
                 {CHART_TYPE_LABELS[chartType]}
@@ -72,28 +73,28 @@ export function SetupForm({
         )}
       </FormField>
       <FormField name="subgroupSize" label="Subgroup size" hint="Values per subgroup (1 for individuals); the sample size on an np chart" issues={issues}>
-        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={optional(values.subgroupSize ?? 1)} />}
+        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={shown("subgroupSize", optional(values.subgroupSize ?? 1))} />}
       </FormField>
       <FormField name="target" label="Target (optional)" issues={issues}>
-        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={optional(values.target)} />}
+        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={shown("target", optional(values.target))} />}
       </FormField>
       <FormField name="lowerSpecLimit" label="Lower specification limit (optional)" issues={issues}>
-        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={optional(values.lowerSpecLimit)} />}
+        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={shown("lowerSpecLimit", optional(values.lowerSpecLimit))} />}
       </FormField>
       <FormField name="upperSpecLimit" label="Upper specification limit (optional)" issues={issues}>
-        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={optional(values.upperSpecLimit)} />}
+        {(attributes) => <input {...attributes} inputMode="decimal" defaultValue={shown("upperSpecLimit", optional(values.upperSpecLimit))} />}
       </FormField>
       <FormField name="ruleSet" label="Run rules" hint='"nelson", "we", or a list such as we-1,we-2' issues={issues}>
-        {(attributes) => <input {...attributes} defaultValue={values.ruleSet ?? "nelson"} />}
+        {(attributes) => <input {...attributes} defaultValue={shown("ruleSet", values.ruleSet ?? "nelson")} />}
       </FormField>
       <div className="field field-check">
         <label>
-          <input type="checkbox" name="safetyRelated" defaultChecked={values.safetyRelated ?? false} /> Safety-related (food contact, medical,
+          <input type="checkbox" name="safetyRelated" defaultChecked={state.ok === false ? state.entered.safetyRelated === "on" : (values.safetyRelated ?? false)} /> Safety-related (food contact, medical,
           structural)
         </label>
       </div>
       <FormField name="description" label="Description (optional)" issues={issues}>
-        {(attributes) => <textarea {...attributes} rows={3} defaultValue={values.description ?? ""} />}
+        {(attributes) => <textarea {...attributes} rows={3} defaultValue={shown("description", values.description ?? "")} />}
       </FormField>
       <button type="submit" disabled={pending}>
         {pending ? "Saving…" : submitLabel}

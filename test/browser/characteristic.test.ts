@@ -85,6 +85,31 @@ describe("characteristic page", () => {
     expect(await page.locator('input[name="values.0"]').inputValue()).toBe("two");
   });
 
+  test("a new limit version needs a reason; with one it is saved and the chart page lists which points it applies to", async () => {
+    await page.getByRole("link", { name: /Back to the chart/ }).click();
+    await page.getByRole("link", { name: "Settings and limits" }).click();
+    await page.waitForURL(/\/settings$/);
+    await page.getByLabel("Baseline: first subgroup").fill("200");
+    await page.getByLabel("Baseline: last subgroup").fill("299");
+    await page.getByLabel("Subgroups left out of the baseline (optional)").fill("250: gauge dropped, value not trusted");
+    await page.getByLabel("Approved by").fill("Test lead");
+    await page.getByRole("button", { name: "Compute and freeze new limits" }).click();
+    await page.locator("#field-reason-error").waitFor();
+    expect(await page.locator("#field-reason-error").textContent()).toMatch(/^Reason for the new version must say why/);
+    // What was typed is still there; only the reason is missing.
+    expect(await page.getByLabel("Approved by").inputValue()).toBe("Test lead");
+    await page.getByLabel("Reason for the new version").fill("New baseline after the mould service");
+    await page.getByRole("button", { name: "Compute and freeze new limits" }).click();
+    await expect.poll(async () => page.getByRole("status").first().textContent()).toMatch(/Limit version 2 saved/);
+    await page.getByRole("link", { name: /Back to the chart/ }).click();
+    await page.waitForURL(/\/characteristics\/\d+$/);
+    const rows = page.getByRole("table", { name: "Limit versions" }).locator("tbody tr");
+    await rows.nth(1).waitFor();
+    expect(await rows.count()).toBe(2);
+    expect(await rows.nth(0).textContent()).toMatch(/v1\s*0–199/);
+    expect(await rows.nth(1).textContent()).toMatch(/v2\s*200 onwards.*left out 250: gauge dropped.*New baseline after the mould service/);
+  });
+
   test("no browser errors", () => {
     expect(browserProblems).toEqual([]);
   });

@@ -7,20 +7,20 @@ import { updateCharacteristic } from "@/src/characteristics/setup";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { reviseLimits } from "@/src/limits";
-import { characteristicInputOf, numberField, text, type TFormIssues, type TFormState } from "../../setup-fields";
+import { characteristicInputOf, enteredValues, numberField, text, type TFormIssues, type TFormState } from "../../setup-fields";
 
-function refused(error: unknown): TFormState {
-  if (isAppError(error)) return { ok: false, issues: error.issues.length > 0 ? [...error.issues] : [{ path: "", message: error.message }] };
+function refused(error: unknown, form: FormData): TFormState {
+  if (isAppError(error)) return { ok: false, issues: error.issues.length > 0 ? [...error.issues] : [{ path: "", message: error.message }], entered: enteredValues(form) };
   throw error;
 }
 
 export async function updateFromForm(characteristicId: number, _previous: TFormState, form: FormData): Promise<TFormState> {
   const parsed = ZCharacteristicInput.safeParse(characteristicInputOf(form));
-  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error) };
+  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error), entered: enteredValues(form) };
   try {
     await updateCharacteristic(prisma, characteristicId, parsed.data, { now: new Date(), changedBy: "characteristic settings" });
   } catch (error) {
-    return refused(error);
+    return refused(error, form);
   }
   revalidatePath(`/characteristics/${characteristicId}`);
   return { ok: true, message: "Settings saved." };
@@ -59,12 +59,12 @@ export async function reviseFromForm(characteristicId: number, _previous: TFormS
         if (exclusion !== null) return { path: "exclusions", message: `entry ${Number(exclusion[1]) + 1}: ${exclusion[2]} ${issue.message}` };
         return issue.path === "baselineEnd" ? { ...issue, path: "baselineLast" } : issue;
       });
-  if (!parsed.success || lineIssues.length > 0) return { ok: false, issues: [...lineIssues, ...schemaIssues] };
+  if (!parsed.success || lineIssues.length > 0) return { ok: false, issues: [...lineIssues, ...schemaIssues], entered: enteredValues(form) };
   try {
     const limitSet = await reviseLimits(prisma, characteristicId, parsed.data, new Date());
     revalidatePath(`/characteristics/${characteristicId}`);
     return { ok: true, message: `Limit version ${limitSet.version} saved; signals re-evaluated.` };
   } catch (error) {
-    return refused(error);
+    return refused(error, form);
   }
 }

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import { FormField } from "../../form-field";
-import type { TFormState } from "../../setup-fields";
+import { enteredOr, type TFormState } from "../../setup-fields";
 
 export function LimitRevisionForm({
   action: serverAction,
@@ -23,7 +23,7 @@ export function LimitRevisionForm({
         </p>
       ))}
       <FormField name="baselineStart" label="Baseline: first subgroup" hint="The new version applies from this subgroup on" issues={issues}>
-        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue="0" />}
+        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={enteredOr(state, "baselineStart", "0")} />}
       </FormField>
       <FormField
         name="baselineLast"
@@ -31,7 +31,7 @@ export function LimitRevisionForm({
         hint={lastSequence === null ? "No subgroups stored yet" : `Subgroups 0 to ${lastSequence} are stored`}
         issues={issues}
       >
-        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={lastSequence === null ? "" : String(Math.min(lastSequence, 99))} />}
+        {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={enteredOr(state, "baselineLast", lastSequence === null ? "" : String(Math.min(lastSequence, 99)))} />}
       </FormField>
       <FormField
         name="exclusions"
@@ -39,13 +39,13 @@ export function LimitRevisionForm({
         hint='One per line, "subgroup: reason", e.g. "17: wrong mould inserted"'
         issues={issues}
       >
-        {(attributes) => <textarea {...attributes} rows={3} />}
+        {(attributes) => <textarea {...attributes} rows={3} defaultValue={enteredOr(state, "exclusions", "")} />}
       </FormField>
       <FormField name="reason" label="Reason for the new version" issues={issues}>
-        {(attributes) => <input {...attributes} />}
+        {(attributes) => <input {...attributes} defaultValue={enteredOr(state, "reason", "")} />}
       </FormField>
       <FormField name="approvedBy" label="Approved by" issues={issues}>
-        {(attributes) => <input {...attributes} autoComplete="name" />}
+        {(attributes) => <input {...attributes} autoComplete="name" defaultValue={enteredOr(state, "approvedBy", "")} />}
       </FormField>
       <button type="submit" disabled={pending}>
         {pending ? "Computing…" : "Compute and freeze new limits"}

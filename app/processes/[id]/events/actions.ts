@@ -5,11 +5,9 @@ import { describeIssues, ZEventInput } from "@/shared/intake";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { recordEvent } from "@/src/events";
-import { numberField, text, utcTimeField } from "../../../characteristics/setup-fields";
+import { enteredValues, numberField, text, utcTimeField, type TFormState } from "../../../characteristics/setup-fields";
 
-export type TEventFormState = { readonly ok: null } | { readonly ok: true; readonly id: number } | { readonly ok: false; readonly issues: readonly { path: string; message: string }[] };
-
-export async function addEvent(processId: number, _previous: TEventFormState, form: FormData): Promise<TEventFormState> {
+export async function addEvent(processId: number, _previous: TFormState, form: FormData): Promise<TFormState> {
   const parsed = ZEventInput.safeParse({
     occurredAt: utcTimeField(form, "occurredAt"),
     kind: text(form, "kind"),
@@ -18,13 +16,13 @@ export async function addEvent(processId: number, _previous: TEventFormState, fo
     value: numberField(form, "value"),
     unit: text(form, "unit"),
   });
-  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error) };
+  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error), entered: enteredValues(form) };
   try {
     const event = await recordEvent(prisma, processId, parsed.data, new Date());
     revalidatePath(`/processes/${processId}/events`);
-    return { ok: true, id: event.id };
+    return { ok: true, message: `Event recorded (${event.kind}, ${event.occurredAt.toISOString()}).` };
   } catch (error) {
-    if (isAppError(error)) return { ok: false, issues: error.issues.length > 0 ? [...error.issues] : [{ path: "", message: error.message }] };
+    if (isAppError(error)) return { ok: false, issues: error.issues.length > 0 ? [...error.issues] : [{ path: "", message: error.message }], entered: enteredValues(form) };
     throw error;
   }
 }

@@ -2,10 +2,11 @@
 
 import { useActionState } from "react";
 import { CAUSE_CATEGORIES, EVENT_KINDS, EVENT_KIND_LABELS } from "@/shared/constants";
-import { addEvent, type TEventFormState } from "./actions";
+import { enteredOr, type TFormState } from "../../../characteristics/setup-fields";
+import { addEvent } from "./actions";
 
 export function EventForm({ processId, defaultTime }: { processId: number; defaultTime: string }) {
-  const [state, action, pending] = useActionState(addEvent.bind(null, processId), { ok: null } as TEventFormState);
+  const [state, action, pending] = useActionState(addEvent.bind(null, processId), { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
   const problemOf = (name: string) => issues.filter((issue) => issue.path === name).map((issue) => issue.message).join("; ");
   const general = issues.filter((issue) => issue.path === "");
@@ -18,7 +19,7 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
     );
   return (
     <form action={action} className="settings-form" noValidate>
-      {state.ok === true && <p role="status">Event recorded.</p>}
+      {state.ok === true && <p role="status">{state.message}</p>}
       {general.map((issue, index) => (
         <p key={index} className="form-error" role="alert">
           {issue.message}
@@ -26,12 +27,12 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
       ))}
       <div className="field">
         <label htmlFor="occurredAt">Time (UTC)</label>
-        <input id="occurredAt" name="occurredAt" type="datetime-local" defaultValue={defaultTime} {...described("occurredAt")} />
+        <input id="occurredAt" name="occurredAt" type="datetime-local" defaultValue={enteredOr(state, "occurredAt", defaultTime)} {...described("occurredAt")} />
         {error("occurredAt", "Time")}
       </div>
       <div className="field">
         <label htmlFor="kind">Kind</label>
-        <select id="kind" name="kind" defaultValue="lot-change" {...described("kind")}>
+        <select id="kind" name="kind" defaultValue={enteredOr(state, "kind", "lot-change")} {...described("kind")}>
           {EVENT_KINDS.map((kind) => (
             <option key={kind} value={kind}>
               {EVENT_KIND_LABELS[kind]}
@@ -42,7 +43,7 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
       </div>
       <div className="field">
         <label htmlFor="causeCategory">Cause category (optional)</label>
-        <select id="causeCategory" name="causeCategory" defaultValue="" {...described("causeCategory")}>
+        <select id="causeCategory" name="causeCategory" defaultValue={enteredOr(state, "causeCategory", "")} {...described("causeCategory")}>
           <option value="">(none)</option>
           {CAUSE_CATEGORIES.map((category) => (
             <option key={category} value={category}>
@@ -54,17 +55,17 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
       </div>
       <div className="field">
         <label htmlFor="description">What happened</label>
-        <textarea id="description" name="description" rows={3} {...described("description")} />
+        <textarea id="description" name="description" rows={3} defaultValue={enteredOr(state, "description", "")} {...described("description")} />
         {error("description", "What happened")}
       </div>
       <div className="field">
         <label htmlFor="value">Reading (optional, e.g. a dew point)</label>
-        <input id="value" name="value" inputMode="decimal" {...described("value")} />
+        <input id="value" name="value" inputMode="decimal" defaultValue={enteredOr(state, "value", "")} {...described("value")} />
         {error("value", "Reading")}
       </div>
       <div className="field">
         <label htmlFor="unit">Unit of the reading</label>
-        <input id="unit" name="unit" {...described("unit")} />
+        <input id="unit" name="unit" defaultValue={enteredOr(state, "unit", "")} {...described("unit")} />
         {error("unit", "Unit")}
       </div>
       <button type="submit" disabled={pending}>
