@@ -15,6 +15,7 @@ import {
   ZTimeRangeQuery,
 } from "@/shared/api";
 import { INTAKE_LIMITS, ZEventInput, ZSubgroupsPost } from "@/shared/intake";
+import { chartDataRoute } from "@/src/chart-data/api-route";
 import { ZImportOptions } from "@/src/imports/options";
 import { MAX_IMPORT_BYTES } from "@/src/imports/upload";
 import { defineApiRoute, type TApiRoute } from "./route-contract";
@@ -148,6 +149,7 @@ export const API_ROUTES: readonly TApiRoute[] = [
   getCharacteristicRoute,
   postSubgroupsRoute,
   listSignalsRoute,
+  chartDataRoute,
   postEventRoute,
   listEventsRoute,
   postImportRoute,
