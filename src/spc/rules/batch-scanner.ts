@@ -5,7 +5,8 @@
  * bare pass summing the points, and the point-by-point scanner (scanner.ts) spends several times that on
  * its per-point history updates. Here one pass turns each point into condition bits (above / below the
  * centre, beyond ±1σ and ±2σ, beyond the limits, an increase, a decrease, missing), 32 points to a 32-bit
- * word, with comparisons only and no branch that depends on the data. Each rule is then a few bitwise
+ * word, with no branch that depends on the data: the zone by arithmetic where sigma is one for the
+ * word, by comparisons otherwise and wherever the arithmetic cannot be sure. Each rule is then a few bitwise
  * operations per word for 32 points at once: "n in a row" is an AND of the word with itself shifted by
  * 1, 2, 4, ... points (bits carried in from the previous word, so runs cross word boundaries), and
  * "k of m" a boolean formula over the shifted words. Firings are built only at the set bits, which are
@@ -19,8 +20,8 @@
  * scanner would refuse (a non-finite point, a negative sigma) is left to the scanner, which throws its
  * own error.
  *
- * Cost: about a dozen comparisons per point, some 150 integer operations per 32 points, and a few
- * operations per firing; no allocation but the firings.
+ * Cost: about ten floating-point operations and six comparisons per point, some 150 integer operations
+ * per 32 points, and a few operations per firing; no allocation but the firings.
  */
 import {
   PATTERN_ABOVE_LIMIT,
@@ -94,51 +95,84 @@ function stretchStartAt(points: Float64Array, index: number): number {
   return 0;
 }
 
-const ZONE_BEYOND_ONE_UP = 0;
-const ZONE_BEYOND_ONE_DOWN = 1;
-const ZONE_BEYOND_TWO_UP = 2;
-const ZONE_BEYOND_TWO_DOWN = 3;
-const ZONE_NOT_WITHIN = 4;
-const ZONE_WORDS = 5;
+/** Positions of the condition words of one 32-point word in the array `exactWord` fills. */
+const ABOVE = 0;
+const BELOW = 1;
+const BEYOND_ONE_UP = 2;
+const BEYOND_ONE_DOWN = 3;
+const BEYOND_TWO_UP = 4;
+const BEYOND_TWO_DOWN = 5;
+const LIMIT_UP = 6;
+const LIMIT_DOWN = 7;
+const INCREASE = 8;
+const DECREASE = 9;
+const INVALID = 10;
+const NOT_WITHIN = 11;
+const CONDITIONS = 12;
 
 /**
- * The zone words of the points base .. base + count − 1, each with its own sigma, into `zones`
- * (ZONE_* positions); false when a sigma is negative (the scanner then throws).
+ * The condition words of the points base .. base + count − 1 by exact comparisons, point by point, with
+ * each point's own sigma, as the scanner compares (same expressions, so the same doubles), into
+ * `conditions` (positions above); `previousValue` is the point before `base` (NaN if none). False when a
+ * point is infinite or a sigma negative (the scanner then throws).
  */
-function zoneWord(
-  points: Float64Array,
-  sigma: Float64Array,
+function exactWord(
+  arrays: ScanArrays,
   base: number,
   count: number,
   center: number,
   floor: number,
-  zones: Int32Array,
+  previousValue: number,
+  conditions: Int32Array,
 ): boolean {
+  const { points, ucl, lcl, sigma } = arrays;
+  let above = 0;
+  let below = 0;
   let beyondOneUp = 0;
   let beyondOneDown = 0;
   let beyondTwoUp = 0;
   let beyondTwoDown = 0;
+  let limitUp = 0;
+  let limitDown = 0;
+  let increase = 0;
+  let decrease = 0;
+  let invalid = 0;
   let notWithin = 0;
   for (let bit = 0; bit < count; bit++) {
     const value = points[base + bit]!;
     const deviation = sigma[base + bit]!;
-    if (deviation < 0) return false;
+    if (deviation < 0 || (value - value !== 0 && value === value)) return false;
     // A NaN sigma makes every comparison with a boundary false; a lower boundary under the floor is
     // never passed, and a point below the centre there is not within 1σ.
     const lowerOne = center - deviation;
     const lowerTwo = center - 2 * deviation;
     const lowerOneDefined = +(lowerOne >= floor);
+    above |= +(value > center) << bit;
+    below |= +(value < center) << bit;
     beyondOneUp |= +(value > center + deviation) << bit;
     beyondTwoUp |= +(value > center + 2 * deviation) << bit;
     beyondOneDown |= (+(value < lowerOne) & lowerOneDefined) << bit;
     beyondTwoDown |= (+(value < lowerTwo) & +(lowerTwo >= floor)) << bit;
     notWithin |= (+!(deviation >= 0) | (+(value < center) & (lowerOneDefined ^ 1))) << bit;
+    limitUp |= +(value > ucl[base + bit]!) << bit;
+    limitDown |= +(value < lcl[base + bit]!) << bit;
+    increase |= +(value > previousValue) << bit;
+    decrease |= +(value < previousValue) << bit;
+    invalid |= +(value !== value) << bit;
+    previousValue = value;
   }
-  zones[ZONE_BEYOND_ONE_UP] = beyondOneUp;
-  zones[ZONE_BEYOND_ONE_DOWN] = beyondOneDown;
-  zones[ZONE_BEYOND_TWO_UP] = beyondTwoUp;
-  zones[ZONE_BEYOND_TWO_DOWN] = beyondTwoDown;
-  zones[ZONE_NOT_WITHIN] = notWithin;
+  conditions[ABOVE] = above;
+  conditions[BELOW] = below;
+  conditions[BEYOND_ONE_UP] = beyondOneUp;
+  conditions[BEYOND_ONE_DOWN] = beyondOneDown;
+  conditions[BEYOND_TWO_UP] = beyondTwoUp;
+  conditions[BEYOND_TWO_DOWN] = beyondTwoDown;
+  conditions[LIMIT_UP] = limitUp;
+  conditions[LIMIT_DOWN] = limitDown;
+  conditions[INCREASE] = increase;
+  conditions[DECREASE] = decrease;
+  conditions[INVALID] = invalid;
+  conditions[NOT_WITHIN] = notWithin;
   return true;
 }
 
@@ -178,23 +212,34 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
   let beyondTwoBefore = 0;
   let beyondFourBefore = 0;
 
-  // Zone boundaries for the first sigma, as the scanner computes them (same expressions, so the same
-  // doubles): most series have one sigma for every point, and the per-point loop then compares with
-  // constants. Words where sigma changes are redone point by point (zoneWord).
-  const firstSigma = length > 0 ? sigma[0]! : Number.NaN;
-  if (firstSigma < 0) return false;
-  const zones = new Int32Array(ZONE_WORDS);
-  const firstKnown = firstSigma >= 0;
-  const upperOne = firstKnown ? center + firstSigma : Number.POSITIVE_INFINITY;
-  const upperTwo = firstKnown ? center + 2 * firstSigma : Number.POSITIVE_INFINITY;
-  const lowerOneDefined = center - firstSigma >= floor;
-  const lowerOne = firstKnown && lowerOneDefined ? center - firstSigma : Number.NEGATIVE_INFINITY;
-  const lowerTwo = firstKnown && center - 2 * firstSigma >= floor ? center - 2 * firstSigma : Number.NEGATIVE_INFINITY;
+  // Most series have one sigma for every point. The zone of a point is then found by arithmetic rather
+  // than by a comparison with each boundary: t = (value − (center − 4σ)) / σ puts the boundaries
+  // center − 2σ, center − σ, center, center + σ, center + 2σ at t = 2 .. 6, and the integer part of t,
+  // clamped to 0 .. 7, is the zone. Its three bits go into three words, from which the six zone
+  // conditions follow by bitwise operations per word. t carries rounding errors, and so do the
+  // boundaries the scanner compares with; both are bounded by `margin` (a few units in the last place of
+  // the largest magnitude involved, in sigmas). A word is redone point by point by exact comparisons
+  // (exactWord) when it holds a point whose t lies within `margin` of an integer (a boundary, or
+  // center ± 3σ) or outside 0 .. 8 (beyond 4σ, infinite, NaN), a tie between successive points (a
+  // decrease is otherwise any step that is not an increase), or a sigma of its own: rare on measured
+  // data, so the branch on it is well predicted. Comparisons with a boundary cost as much as the
+  // arithmetic, but the zone takes three bits where the comparisons take six, and a tie one flag where a
+  // decrease takes a bit.
+  const sigma0 = length > 0 ? sigma[0]! : Number.NaN;
+  const start = center - 4 * sigma0;
+  const inverse = 1 / sigma0;
+  const margin = 1e-12 + (16 * Number.EPSILON * (Math.abs(center) + 4 * sigma0)) / sigma0;
+  const arithmeticZones = sigma0 > 0 && margin < 1e-6;
+  const nearBoundary = 0.5 - margin;
+  const lowerOneMask = center - sigma0 >= floor ? -1 : 0;
+  const lowerTwoMask = center - 2 * sigma0 >= floor ? -1 : 0;
+  const conditions = new Int32Array(CONDITIONS);
 
   // Module constants read in the loop cost a context load and a check that they are initialised.
   const word = WORD;
   for (let base = 0; base < length; base += word) {
     const count = Math.min(word, length - base);
+    const present = count === word ? -1 : (1 << count) - 1;
     let above = 0;
     let below = 0;
     let beyondOneUp = 0;
@@ -206,44 +251,56 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
     let increase = 0;
     let decrease = 0;
     let invalid = 0;
-    let sigmaChanged = 0;
-    for (let bit = 0; bit < count; bit++) {
-      const position = base + bit;
-      const value = points[position]!;
-      const deviation = sigma[position]!;
-      above |= +(value > center) << bit;
-      below |= +(value < center) << bit;
-      beyondOneUp |= +(value > upperOne) << bit;
-      beyondTwoUp |= +(value > upperTwo) << bit;
-      beyondOneDown |= +(value < lowerOne) << bit;
-      beyondTwoDown |= +(value < lowerTwo) << bit;
-      limitUp |= +(value > ucl[position]!) << bit;
-      limitDown |= +(value < lcl[position]!) << bit;
-      increase |= +(value > previousValue) << bit;
-      decrease |= +(value < previousValue) << bit;
-      invalid |= +!(value - value === 0) << bit;
-      // Always set when the first sigma is NaN (no zones): every word is then redone by zoneWord.
-      sigmaChanged |= +(deviation !== firstSigma);
-      previousValue = value;
-    }
-    if (invalid !== 0) {
+    let notWithin = 0;
+    const previousBefore = previousValue;
+    let exact = +!arithmeticZones;
+    if (arithmeticZones) {
+      let low = 0;
+      let middle = 0;
+      let high = 0;
       for (let bit = 0; bit < count; bit++) {
-        const value = points[base + bit]!;
-        if (((invalid >>> bit) & 1) === 1 && value === value) return false; // ±Infinity
+        const position = base + bit;
+        const value = points[position]!;
+        const t = (value - start) * inverse;
+        const zone = Math.min(Math.max(t, 0.5), 7.5) | 0;
+        exact |= +!(Math.abs(t - zone - 0.5) < nearBoundary) | +(value === previousValue) | +(sigma[position]! !== sigma0);
+        low |= (zone & 1) << bit;
+        middle |= ((zone >> 1) & 1) << bit;
+        high |= (zone >> 2) << bit;
+        limitUp |= +(value > ucl[position]!) << bit;
+        limitDown |= +(value < lcl[position]!) << bit;
+        increase |= +(value > previousValue) << bit;
+        previousValue = value;
       }
+      // Zones 4 .. 7 (binary 1xx) are above the centre, 5 .. 7 beyond +1σ, 6 and 7 beyond +2σ; zones
+      // 0 .. 2 are beyond −1σ, 0 and 1 beyond −2σ (where those boundaries are above the floor).
+      above = high;
+      below = present & ~high;
+      beyondOneUp = high & (middle | low);
+      beyondTwoUp = high & middle;
+      beyondOneDown = below & ~(middle & low) & lowerOneMask;
+      beyondTwoDown = below & ~middle & lowerTwoMask;
+      notWithin = below & ~lowerOneMask;
+      // No tie and no missing point in the word: a step that is not an increase is a decrease, but for
+      // the first point when nothing precedes it (the start of the series, or after a missing point).
+      decrease = present & ~increase & ~+(previousBefore !== previousBefore);
     }
-    // Not within 1σ although inside the boundaries: no sigma, or below the centre where the lower 1σ
-    // boundary is under the floor (definitions.ts, convention 11).
-    let notWithin = firstKnown ? (lowerOneDefined ? 0 : below) : -1;
-    if (sigmaChanged !== 0) {
-      if (!zoneWord(points, sigma, base, count, center, floor, zones)) return false;
-      beyondOneUp = zones[ZONE_BEYOND_ONE_UP]!;
-      beyondOneDown = zones[ZONE_BEYOND_ONE_DOWN]!;
-      beyondTwoUp = zones[ZONE_BEYOND_TWO_UP]!;
-      beyondTwoDown = zones[ZONE_BEYOND_TWO_DOWN]!;
-      notWithin = zones[ZONE_NOT_WITHIN]!;
+    if (exact !== 0) {
+      if (!exactWord(arrays, base, count, center, floor, previousBefore, conditions)) return false;
+      above = conditions[ABOVE]!;
+      below = conditions[BELOW]!;
+      beyondOneUp = conditions[BEYOND_ONE_UP]!;
+      beyondOneDown = conditions[BEYOND_ONE_DOWN]!;
+      beyondTwoUp = conditions[BEYOND_TWO_UP]!;
+      beyondTwoDown = conditions[BEYOND_TWO_DOWN]!;
+      limitUp = conditions[LIMIT_UP]!;
+      limitDown = conditions[LIMIT_DOWN]!;
+      increase = conditions[INCREASE]!;
+      decrease = conditions[DECREASE]!;
+      invalid = conditions[INVALID]!;
+      notWithin = conditions[NOT_WITHIN]!;
+      previousValue = points[base + count - 1]!;
     }
-    const present = count === word ? -1 : (1 << count) - 1;
     const valid = present & ~invalid;
 
     // n in a row on one side: runs of 2, 4, 8 by doubling, then 9.

@@ -6,7 +6,9 @@
  * 32-point word boundaries, missing points (NaN) restarting windows, points exactly on the centre line and
  * on the ±1σ, ±2σ boundaries and the limits, ties between successive points, sigma varying from point to
  * point (and NaN or zero sigma), limits varying, floors above center − kσ, and every subset of rules.
- * Values sit on a quarter-sigma grid so that boundaries and ties are frequent. Exact comparisons.
+ * Most values sit on a quarter-sigma grid so that boundaries and ties are frequent; stretches of values
+ * off the grid (some a few units in the last place from a boundary) reach the words the batch scan
+ * decides by arithmetic. Exact comparisons.
  */
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
@@ -32,6 +34,12 @@ function wordFirings(series: StatisticSeries, rules: number): Firing[] | undefin
 }
 
 const grid = (min: number, max: number) => fc.integer({ min, max }).map((quarterSigmas) => quarterSigmas / 4);
+/** Off the grid, as measured data are: the words the batch scan decides by arithmetic rather than comparisons. */
+const continuous = fc.double({ min: -4.5, max: 4.5, noNaN: true });
+/** A boundary (or ±3σ, ±4σ) moved by a few units in the last place: where the arithmetic must defer to exact comparisons. */
+const nearBoundary = fc
+  .record({ sigmas: fc.integer({ min: -4, max: 4 }), ulps: fc.integer({ min: -3, max: 3 }) })
+  .map(({ sigmas, ulps }) => sigmas + ulps * Number.EPSILON * Math.max(1, Math.abs(sigmas)) * 8);
 /** Stretches that make each rule fire now and then (noise, quiet, wild, trends, zigzags, runs, gaps). */
 const stretch = fc.oneof(
   fc.array(grid(-14, 14), { minLength: 1, maxLength: 40 }),
@@ -47,18 +55,26 @@ const stretch = fc.oneof(
     Array.from({ length }, () => level),
   ),
   fc.array(fc.constant(Number.NaN), { minLength: 1, maxLength: 3 }),
+  fc.array(continuous, { minLength: 20, maxLength: 70 }),
+  fc.array(fc.oneof({ arbitrary: continuous, weight: 30 }, { arbitrary: nearBoundary, weight: 1 }), {
+    minLength: 20,
+    maxLength: 70,
+  }),
 );
 
 const seriesArbitrary = fc
   .record({
     values: fc.array(stretch, { minLength: 1, maxLength: 12 }).map((stretches) => stretches.flat().slice(0, 200)),
-    center: fc.constantFrom(0, 0.5, 10),
-    sigmaKind: fc.constantFrom("constant", "varying", "nan", "zero", "mostly constant"),
+    center: fc.constantFrom(0, 0.5, 10, 10.1),
+    sigmaKind: fc.constantFrom("constant", "varying", "nan", "zero", "mostly constant", "scaled"),
+    // "scaled": one sigma that is not a power of 2, values in sigmas, so that the arithmetic of the batch
+    // scan rounds where the boundaries (center ± k·σ) round too.
+    scale: fc.constantFrom(0.3, 1 / 3, 0.7, 2.2),
     sigmas: fc.array(fc.constantFrom(1, 1, 1, 0.5, 2, 0, Number.NaN), { minLength: 200, maxLength: 200 }),
     limitKind: fc.constantFrom("3 sigma", "varying", "tight"),
     floor: fc.constantFrom(Number.NEGATIVE_INFINITY, -1.5, -0.5, 0, 0.5),
   })
-  .map(({ values, center, sigmaKind, sigmas, limitKind, floor }): StatisticSeries => {
+  .map(({ values, center, sigmaKind, scale, sigmas, limitKind, floor }): StatisticSeries => {
     const length = values.length;
     const sigma = Float64Array.from({ length }, (_, index) => {
       switch (sigmaKind) {
@@ -70,6 +86,8 @@ const seriesArbitrary = fc
           return 0;
         case "mostly constant":
           return index % 37 === 36 ? sigmas[index]! : 1;
+        case "scaled":
+          return scale;
         default:
           return sigmas[index]!;
       }
@@ -78,7 +96,10 @@ const seriesArbitrary = fc
       limitKind === "tight" ? 1.5 : limitKind === "varying" ? 2 + (index % 3) : 3 * (sigma[index]! === sigma[index]! ? sigma[index]! : 1);
     return {
       key: "x",
-      points: Float64Array.from(values, (value) => center + Math.max(value, floor - center)),
+      points: Float64Array.from(
+        values,
+        (value) => center + Math.max(sigmaKind === "scaled" ? value * scale : value, floor - center),
+      ),
       center,
       ucl: Float64Array.from({ length }, (_, index) => center + spread(index)),
       lcl: Float64Array.from({ length }, (_, index) => Math.max(center - spread(index), floor)),
