@@ -214,17 +214,16 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
 
   // Most series have one sigma for every point. The zone of a point is then found by arithmetic rather
   // than by a comparison with each boundary: t = (value − (center − 4σ)) / σ puts the boundaries
-  // center − 2σ, center − σ, center, center + σ, center + 2σ at t = 2 .. 6, and the integer part of t,
-  // clamped to 0 .. 7, is the zone. Its three bits go into three words, from which the six zone
-  // conditions follow by bitwise operations per word. t carries rounding errors, and so do the
-  // boundaries the scanner compares with; both are bounded by `margin` (a few units in the last place of
-  // the largest magnitude involved, in sigmas). A word is redone point by point by exact comparisons
-  // (exactWord) when it holds a point whose t lies within `margin` of an integer (a boundary, or
-  // center ± 3σ) or outside 0 .. 8 (beyond 4σ, infinite, NaN), a tie between successive points (a
-  // decrease is otherwise any step that is not an increase), or a sigma of its own: rare on measured
-  // data, so the branch on it is well predicted. Comparisons with a boundary cost as much as the
-  // arithmetic, but the zone takes three bits where the comparisons take six, and a tie one flag where a
-  // decrease takes a bit.
+  // center − 2σ, center − σ, center, center + σ, center + 2σ at t = 2 .. 6, and the integer part of t
+  // (0 .. 7) is the zone. Its three bits go into three words, from which the six zone conditions follow
+  // by bitwise operations per word. t carries rounding errors, and so do the boundaries the scanner
+  // compares with; both are bounded by `margin` (a few units in the last place of the largest magnitude
+  // involved, in sigmas). A word is redone point by point by exact comparisons (exactWord) when it holds
+  // a point whose t lies within `margin` of an integer (a boundary, or center ± 3σ) or outside 0 .. 8
+  // (beyond 4σ, infinite, NaN), a step that is zero (a tie) or NaN (after a missing point, or the first
+  // point), or a sigma of its own: rare on measured data, so the branch on it is well predicted. Both
+  // tests share one comparison (`sure`). Comparisons with the boundaries cost about as much as the
+  // arithmetic, but the zone takes three bits where they take six, and a decrease no bit of its own.
   const sigma0 = length > 0 ? sigma[0]! : Number.NaN;
   const start = center - 4 * sigma0;
   const inverse = 1 / sigma0;
@@ -262,14 +261,17 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
         const position = base + bit;
         const value = points[position]!;
         const t = (value - start) * inverse;
-        const zone = Math.min(Math.max(t, 0.5), 7.5) | 0;
-        exact |= +!(Math.abs(t - zone - 0.5) < nearBoundary) | +(value === previousValue) | +(sigma[position]! !== sigma0);
+        const zone = t | 0;
+        const step = value - previousValue;
+        // Positive when t is off the integers by more than the margin and the step is not zero (nor NaN).
+        const sure = (nearBoundary - Math.abs(t - zone - 0.5)) * Math.abs(step);
+        exact |= +!(sure > 0) | (zone & ~7) | +(sigma[position]! !== sigma0);
         low |= (zone & 1) << bit;
         middle |= ((zone >> 1) & 1) << bit;
         high |= (zone >> 2) << bit;
         limitUp |= +(value > ucl[position]!) << bit;
         limitDown |= +(value < lcl[position]!) << bit;
-        increase |= +(value > previousValue) << bit;
+        increase |= +(step > 0) << bit;
         previousValue = value;
       }
       // Zones 4 .. 7 (binary 1xx) are above the centre, 5 .. 7 beyond +1σ, 6 and 7 beyond +2σ; zones
@@ -281,9 +283,9 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
       beyondOneDown = below & ~(middle & low) & lowerOneMask;
       beyondTwoDown = below & ~middle & lowerTwoMask;
       notWithin = below & ~lowerOneMask;
-      // No tie and no missing point in the word: a step that is not an increase is a decrease, but for
-      // the first point when nothing precedes it (the start of the series, or after a missing point).
-      decrease = present & ~increase & ~+(previousBefore !== previousBefore);
+      // Every step of the word is a number and not zero (else the word is redone): a step that is not
+      // an increase is a decrease.
+      decrease = present & ~increase;
     }
     if (exact !== 0) {
       if (!exactWord(arrays, base, count, center, floor, previousBefore, conditions)) return false;
