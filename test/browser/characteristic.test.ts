@@ -5,7 +5,7 @@ import { mkdir } from "node:fs/promises";
 import path from "node:path";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { startApp, type RunningApp } from "./production-server";
+import { startApp, watchedPage, type RunningApp } from "./production-server";
 
 let app: RunningApp | undefined;
 let page: Page;
@@ -13,11 +13,7 @@ const browserProblems: string[] = [];
 
 beforeAll(async () => {
   app = await startApp("demo plant");
-  page = await app.browser.newPage({ viewport: { width: 1600, height: 1000 } });
-  page.on("console", (message) => {
-    if (message.type() === "error") browserProblems.push(`console: ${message.text()}`);
-  });
-  page.on("pageerror", (error) => browserProblems.push(`page error: ${error.message}`));
+  page = await watchedPage(app, browserProblems, { width: 1600, height: 1000 });
   const response = await page.goto(app.baseUrl, { waitUntil: "networkidle" });
   expect(response?.status(), app.serverOutput()).toBe(200);
 });

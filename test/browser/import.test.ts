@@ -9,7 +9,7 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { DEFAULT_DEMO_SEED } from "@/src/demo/scenario";
 import { capHeightCsv } from "../integration/imports/demo-continuation";
-import { startApp, type RunningApp } from "./production-server";
+import { startApp, watchedPage, type RunningApp } from "./production-server";
 
 /** Imported points, the last half shifted up by 2.5 demo sigmas (see capHeightCsv). */
 const IMPORTED = 120;
@@ -23,11 +23,7 @@ const browserProblems: string[] = [];
 beforeAll(async () => {
   app = await startApp("demo plant");
   directory = await mkdtemp(path.join(os.tmpdir(), "assignable-import-browser-"));
-  page = await app.browser.newPage();
-  page.on("console", (message) => {
-    if (message.type() === "error") browserProblems.push(`console: ${message.text()}`);
-  });
-  page.on("pageerror", (error) => browserProblems.push(`page error: ${error.message}`));
+  page = await watchedPage(app, browserProblems);
 });
 
 afterAll(async () => {

@@ -5,7 +5,7 @@ import path from "node:path";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { SAFETY_CAUTION } from "@/shared/constants";
-import { startApp, type RunningApp } from "./production-server";
+import { startApp, watchedPage, type RunningApp } from "./production-server";
 
 // The four characteristics of the invented closure-moulding plant (DESIGN.md, "Demo scenario").
 const DEMO_CHARACTERISTICS = [/closure weight/i, /cap height/i, /short-shot/i, /flash/i];
@@ -16,11 +16,7 @@ const browserProblems: string[] = [];
 
 beforeAll(async () => {
   app = await startApp("demo plant");
-  page = await app.browser.newPage();
-  page.on("console", (message) => {
-    if (message.type() === "error") browserProblems.push(`console: ${message.text()}`);
-  });
-  page.on("pageerror", (error) => browserProblems.push(`page error: ${error.message}`));
+  page = await watchedPage(app, browserProblems);
   const response = await page.goto(app.baseUrl, { waitUntil: "networkidle" });
   expect(response?.status(), app.serverOutput()).toBe(200);
 });

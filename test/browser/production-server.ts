@@ -12,7 +12,7 @@ import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { promisify } from "node:util";
-import { chromium, type BrowserContext } from "playwright-core";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
 
 const run = promisify(execFile);
 
@@ -127,4 +127,19 @@ export async function startApp(startingData: StartingData): Promise<RunningApp> 
     await stop();
     throw error;
   }
+}
+
+/** A new page that records console errors and uncaught page errors into `problems`. */
+export async function watchedPage(
+  app: RunningApp,
+  problems: string[],
+  viewport?: { width: number; height: number },
+): Promise<Page> {
+  const page = await app.browser.newPage();
+  if (viewport !== undefined) await page.setViewportSize(viewport);
+  page.on("console", (message) => {
+    if (message.type() === "error") problems.push(`console: ${message.text()}`);
+  });
+  page.on("pageerror", (error) => problems.push(`page error: ${error.message}`));
+  return page;
 }
