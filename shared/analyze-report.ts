@@ -8,21 +8,8 @@
  * `rules`, `parameters`, `labels`, `notes`.
  */
 import { z } from "zod";
-import { CAUSE_CATEGORIES, CHART_TYPES, RULE_IDS, STATISTIC_KEYS, type ChartType, type StatisticKey } from "./constants";
+import { CAUSE_CATEGORIES, CHART_STATISTIC_KEYS, CHART_TYPES, RULE_IDS, STATISTIC_KEYS } from "./constants";
 import { PATTERN_KINDS } from "./patterns";
-
-/** The plotted statistics of each chart, in the order they are reported. */
-export const CHART_STATISTIC_KEYS: Readonly<Record<ChartType, readonly StatisticKey[]>> = {
-  imr: ["x", "mr"],
-  "xbar-r": ["xbar", "r"],
-  "xbar-s": ["xbar", "s"],
-  p: ["p"],
-  np: ["np"],
-  c: ["c"],
-  u: ["u"],
-  ewma: ["ewma"],
-  cusum: ["cusum-upper", "cusum-lower"],
-};
 
 const ZMaybeNumber = z.number().nullable();
 

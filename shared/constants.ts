@@ -39,6 +39,19 @@ export const STATISTIC_KEYS = [
 ] as const;
 export type StatisticKey = (typeof STATISTIC_KEYS)[number];
 
+/** The plotted statistics of each chart, in the order the engine evaluates and reports them. */
+export const CHART_STATISTIC_KEYS: Readonly<Record<ChartType, readonly StatisticKey[]>> = {
+  imr: ["x", "mr"],
+  "xbar-r": ["xbar", "r"],
+  "xbar-s": ["xbar", "s"],
+  p: ["p"],
+  np: ["np"],
+  c: ["c"],
+  u: ["u"],
+  ewma: ["ewma"],
+  cusum: ["cusum-upper", "cusum-lower"],
+};
+
 /** Run rules: the four Western Electric rules and Nelson's eight tests. */
 export const WESTERN_ELECTRIC_RULES = ["we-1", "we-2", "we-3", "we-4"] as const;
 export const NELSON_RULES = [

@@ -15,7 +15,7 @@
  * consistent snapshot even while subgroups arrive.
  */
 import type Database from "better-sqlite3";
-import type { ChartType, RuleId, StatisticKey } from "@/shared/constants";
+import { CHART_STATISTIC_KEYS, type ChartType, type RuleId, type StatisticKey } from "@/shared/constants";
 import { chartTypeOf } from "@/src/characteristics/setup";
 import { AppError } from "@/src/errors";
 import { chartParametersOf, limitSegments, segmentAt, summarySeries, type TSegment, type TSummary } from "@/src/limits";
@@ -44,19 +44,6 @@ export interface TChartViewOptions {
   readonly toSequence?: number;
   readonly maxPoints?: number;
 }
-
-/** The plotted statistics of each chart, in the order summarySeries returns them. */
-const STATISTICS_OF: Record<ChartType, readonly StatisticKey[]> = {
-  imr: ["x", "mr"],
-  "xbar-r": ["xbar", "r"],
-  "xbar-s": ["xbar", "s"],
-  p: ["p"],
-  np: ["np"],
-  c: ["c"],
-  u: ["u"],
-  ewma: ["ewma"],
-  cusum: ["cusum-upper", "cusum-lower"],
-};
 
 interface TLimitSetRow extends TLimitSetParameters {
   readonly id: number;
@@ -237,7 +224,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       | undefined;
     if (characteristic === undefined) throw new AppError("not-found", `Characteristic ${characteristicId} does not exist`);
     const chart = chartTypeOf(characteristic.chartType);
-    const keys = STATISTICS_OF[chart];
+    const keys = CHART_STATISTIC_KEYS[chart];
     const empty: TChartView = {
       characteristicId,
       chartType: chart,
