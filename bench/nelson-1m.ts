@@ -10,8 +10,10 @@
  *   disturbance (another process taking the core, a cache flushed, a garbage collection or a compiler
  *   thread counted in the process's CPU time) only adds time, so the minimum is the least disturbed
  *   estimate. Medians are printed beside it.
- * - The rules side is the real entry point, `evaluateRules` from src/spc/rules, producing merged signals;
- *   nothing is cached between repetitions. The bare side is the plainest loop over the same array.
+ * - The rules side is the real entry point, `evaluateRules` from src/spc/rules, producing merged signals,
+ *   on the `x` statistic of an individuals chart built by the engine (estimateParameters, evaluateChart)
+ *   before timing; nothing is cached between repetitions. The bare side is the plainest loop over the
+ *   same array.
  *
  * - How the code is loaded: run under tsx, this file bundles itself with esbuild (the compiler tsx uses)
  *   and measures in a child `node` on the bundle, without loader hooks or source maps. Under tsx the
@@ -29,9 +31,10 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { NELSON_RULES } from "../shared/constants";
+import { estimateParameters, evaluateChart } from "../src/spc/charts";
+import { individualsData } from "../src/spc/data";
 import { createRng } from "../src/spc/random";
 import { evaluateRules } from "../src/spc/rules";
-import type { StatisticSeries } from "../src/spc/types";
 
 const BUNDLED = "NELSON_BENCH_BUNDLED";
 if (process.env[BUNDLED] === undefined) {
@@ -80,19 +83,16 @@ function summary(samples: readonly Sample[]): { min: Sample; median: Sample } {
 }
 
 const rng = createRng(20261202);
-const points = new Float64Array(POINTS);
-for (let index = 0; index < POINTS; index++) points[index] = 10 + 0.5 * rng.normal();
-// Fixed limits of an individuals chart with centre 10 and sigma 0.5.
-const series: StatisticSeries = {
-  key: "x",
-  points,
-  center: 10,
-  ucl: new Float64Array(POINTS).fill(11.5),
-  lcl: new Float64Array(POINTS).fill(8.5),
-  sigma: new Float64Array(POINTS).fill(0.5),
-  floor: Number.NEGATIVE_INFINITY,
-  zoneRulesByDefault: true,
-};
+const values = new Float64Array(POINTS);
+for (let index = 0; index < POINTS; index++) values[index] = 10 + 0.5 * rng.normal();
+// The series as the engine builds it (outside the timed region): an individuals chart whose parameters
+// are estimated on the data (Phase I) and then frozen and applied to every point (Phase II); its `x`
+// statistic, with the limits and the uniform-limits flag the charts module sets.
+const data = individualsData(values);
+const chart = evaluateChart(data, estimateParameters("imr", data));
+const series = chart.statistics.find((statistic) => statistic.key === "x");
+if (series === undefined) throw new Error("the individuals chart has no x statistic");
+const { points } = series;
 
 function sum(values: Float64Array): number {
   let total = 0;
@@ -124,6 +124,7 @@ const ratio = rules.min.cpu / bare.min.cpu;
 const format = ({ min, median }: { min: Sample; median: Sample }) =>
   `min ${min.cpu.toFixed(3)} ms CPU, ${min.wall.toFixed(3)} ms wall; median ${median.cpu.toFixed(3)} ms CPU, ${median.wall.toFixed(3)} ms wall`;
 console.log(`points: ${POINTS.toLocaleString("en")} individuals, seeded in-control normal data (checksum ${checksum.toFixed(3)})`);
+console.log(`series: individuals chart x, limits estimated on the data, uniform limits flag: ${series.uniformLimits === true}`);
 console.log(`loaded as: an esbuild bundle of this file run by plain node ${process.version}`);
 console.log(`repetitions: ${REPETITIONS}, alternating, after ${WARM_UP} warm-up runs of each`);
 console.log(`bare sum pass:          ${format(bare)}`);

@@ -126,6 +126,13 @@ export interface StatisticSeries {
   readonly floor: number;
   /** Whether run rules beyond rule 1 apply to this statistic unless asked (false for R, S, MR, EWMA, CUSUM). */
   readonly zoneRulesByDefault: boolean;
+  /**
+   * True when `ucl`, `lcl` and `sigma` each hold the same value at every point (fixed limits: I-MR,
+   * X-bar/R and X-bar/S, np, c, and p or u with one sample size; not EWMA's exact time-varying limits).
+   * Set by the charts module, which knows it by construction; readers may then use the first value for
+   * every point without reading the arrays (the batch run-rule scan does). Absent means "not known".
+   */
+  readonly uniformLimits?: boolean;
 }
 
 /** A chart evaluated against parameters: one or two statistics. */

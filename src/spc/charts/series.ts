@@ -31,10 +31,13 @@ export function limitSeries(shape: SeriesShape): StatisticSeries {
   const ceiling = shape.ceiling ?? Infinity;
   const ucl = new Float64Array(points.length);
   const lcl = new Float64Array(points.length);
+  // Limits are a function of sigma alone, so one sigma at every point gives uniform limits.
+  let sigmaVaries = false;
   for (let index = 0; index < points.length; index++) {
     const spread = width * sigma[index]!;
     ucl[index] = Math.min(ceiling, center + spread);
     lcl[index] = Math.max(floor, center - spread);
+    sigmaVaries ||= sigma[index] !== sigma[0];
   }
   return {
     key: shape.key,
@@ -45,6 +48,7 @@ export function limitSeries(shape: SeriesShape): StatisticSeries {
     sigma,
     floor,
     zoneRulesByDefault: shape.zoneRulesByDefault,
+    uniformLimits: !sigmaVaries,
   };
 }
 

@@ -26,6 +26,17 @@ export function checkSeries(series: StatisticSeries): void {
       throw new SpcInputError(`${series.key}: ${name} has ${series[name].length} values for ${length} points`);
     }
   }
+  // The batch scan trusts `uniformLimits` (set by the charts module by construction) and reads only the
+  // first point's limits; checking every point would cost what the flag saves, so only the last is compared.
+  if (series.uniformLimits === true && length > 1) {
+    for (const name of ["ucl", "lcl", "sigma"] as const) {
+      const first = series[name][0]!;
+      const last = series[name][length - 1]!;
+      if (!(first === last || (first !== first && last !== last))) {
+        throw new SpcInputError(`${series.key}: uniformLimits is set but ${name} is ${first} at 0 and ${last} at ${length - 1}`, length - 1);
+      }
+    }
+  }
   if (!Number.isFinite(series.center)) throw new SpcInputError(`${series.key}: the centre line is not finite`);
   if (Number.isNaN(series.floor)) throw new SpcInputError(`${series.key}: the floor is NaN`);
 }

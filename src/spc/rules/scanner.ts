@@ -82,6 +82,8 @@ export interface ScanArrays {
   readonly ucl: Float64Array;
   readonly lcl: Float64Array;
   readonly sigma: Float64Array;
+  /** Set when ucl, lcl and sigma hold one value at every point (StatisticSeries.uniformLimits); the batch scan then reads the first. */
+  readonly uniformLimits?: boolean;
 }
 
 /** Receives each firing (of the scanner's statistic) as it is found, in index order. */

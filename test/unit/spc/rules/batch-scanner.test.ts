@@ -5,7 +5,9 @@
  * invented series built to hit the cases where a word-parallel form could go wrong: runs crossing the
  * 32-point word boundaries, missing points (NaN) restarting windows, points exactly on the centre line and
  * on the ±1σ, ±2σ boundaries and the limits, ties between successive points, sigma varying from point to
- * point (and NaN or zero sigma), limits varying, floors above center − kσ, and every subset of rules.
+ * point (and NaN or zero sigma), limits varying, floors above center − kσ, and every subset of rules;
+ * series whose limits hold one value carry the `uniformLimits` flag, as the charts module sets it, so the
+ * scan's path that trusts it (first point's limits and sigma for every point) is held equal too.
  * Most values sit on a quarter-sigma grid so that boundaries and ties are frequent; stretches of values
  * off the grid (some a few units in the last place from a boundary) reach the words the batch scan
  * decides by arithmetic. Exact comparisons.
@@ -32,6 +34,8 @@ function wordFirings(series: StatisticSeries, rules: number): Firing[] | undefin
   );
   return complete ? firings : undefined;
 }
+
+const holdsOneValue = (values: Float64Array): boolean => values.every((value) => value === values[0]);
 
 const grid = (min: number, max: number) => fc.integer({ min, max }).map((quarterSigmas) => quarterSigmas / 4);
 /** Off the grid, as measured data are: the words the batch scan decides by arithmetic rather than comparisons. */
@@ -94,6 +98,8 @@ const seriesArbitrary = fc
     });
     const spread = (index: number): number =>
       limitKind === "tight" ? 1.5 : limitKind === "varying" ? 2 + (index % 3) : 3 * (sigma[index]! === sigma[index]! ? sigma[index]! : 1);
+    const ucl = Float64Array.from({ length }, (_, index) => center + spread(index));
+    const lcl = Float64Array.from({ length }, (_, index) => Math.max(center - spread(index), floor));
     return {
       key: "x",
       points: Float64Array.from(
@@ -101,11 +107,13 @@ const seriesArbitrary = fc
         (value) => center + Math.max(sigmaKind === "scaled" ? value * scale : value, floor - center),
       ),
       center,
-      ucl: Float64Array.from({ length }, (_, index) => center + spread(index)),
-      lcl: Float64Array.from({ length }, (_, index) => Math.max(center - spread(index), floor)),
+      ucl,
+      lcl,
       sigma,
       floor,
       zoneRulesByDefault: true,
+      // Set, as the charts module sets it, exactly where the arrays hold one value: the scan then trusts it.
+      uniformLimits: holdsOneValue(ucl) && holdsOneValue(lcl) && holdsOneValue(sigma),
     };
   });
 const rulesArbitrary = fc.subarray([...RULE_IDS], { minLength: 1 }).map((rules: RuleId[]) => ruleMask(rules));
@@ -124,7 +132,9 @@ describe("word-parallel batch scan = point-by-point scanner", () => {
     fc.assert(
       fc.property(
         fc.array(stretch, { minLength: 30, maxLength: 60 }).map((stretches) => stretches.flat()),
-        (values) => {
+        // Constant limits, with and without the flag: the fast path and the per-word check of the limits.
+        fc.boolean(),
+        (values, uniformLimits) => {
           const length = values.length;
           const series: StatisticSeries = {
             key: "x",
@@ -135,6 +145,7 @@ describe("word-parallel batch scan = point-by-point scanner", () => {
             sigma: new Float64Array(length).fill(1),
             floor: Number.NEGATIVE_INFINITY,
             zoneRulesByDefault: true,
+            uniformLimits,
           };
           const all = ruleMask(RULE_IDS);
           expect(wordFirings(series, all)).toEqual(scannerFirings(series, all));

@@ -137,4 +137,8 @@ describe("invalid input", () => {
     const series = { ...fixedSeries([0, 0]), ucl: new Float64Array(1) };
     expect(() => evaluateRules(series, ["we-1"])).toThrow(/ucl has 1 values for 2 points/);
   });
+  test("uniformLimits set on limits that differ at the last point throws, naming that point", () => {
+    const series = { ...fixedSeries([0, 0, 0], { sigma: [1, 1, 2] }), uniformLimits: true };
+    expect(() => evaluateRules(series, ["we-2"])).toThrow(/uniformLimits is set but sigma is 1 at 0 and 2 at 2/);
+  });
 });
