@@ -8,7 +8,8 @@
  * followed at once by a run below is two events, not one). Used by the batch evaluation (fed straight
  * from the word-parallel scan, without a Firing object per firing) and by live detection, which passes
  * the signals still open in the database so that a firing extends them.
- * Cost: O(1) per firing (no key built, no allocation but the point pushed), then one sort of the signals.
+ * Cost: O(1) per firing (no key built, no allocation but the point pushed); each new signal is inserted
+ * in result order, past the few signals started within the window before it, so no sort is needed.
  */
 import type { RuleId, StatisticKey } from "../../../shared/constants";
 import type { Signal } from "../types";
@@ -41,24 +42,53 @@ interface OpenSignal {
 
 /** Signals built from firings fed in index order (per statistic), after the signals given as open. */
 export class SignalBuilder {
-  /** Every signal, in order of creation. */
+  /** Every signal, kept in result order (start, then rule, then statistic) as each is placed. */
   private readonly signals: OpenSignal[] = [];
+  /** The rule position of each signal of `signals`, at the same index: the sort key after `start`. */
+  private readonly orders: number[] = [];
   /** The latest signal of each rule (by rule position) per statistic. */
   private readonly latest = new Map<StatisticKey, (OpenSignal | undefined)[]>();
+  /** The statistic of the last firing and its slots in `latest`: firings of one statistic come in a row. */
+  private chart: StatisticKey | undefined;
+  private latestOfChart: (OpenSignal | undefined)[] = [];
 
   constructor(open: readonly Signal[] = []) {
-    for (const signal of open) this.place({ ...signal, firing: [...signal.firing] });
+    for (const signal of open) this.place({ ...signal, firing: [...signal.firing] }, ruleOrder(signal.rule));
   }
 
-  private place(signal: OpenSignal): void {
-    let byRule = this.latest.get(signal.chart);
-    if (byRule === undefined) this.latest.set(signal.chart, (byRule = []));
-    byRule[ruleOrder(signal.rule)] = signal;
-    this.signals.push(signal);
+  private slotsOf(chart: StatisticKey): (OpenSignal | undefined)[] {
+    if (chart !== this.chart) {
+      let slots = this.latest.get(chart);
+      if (slots === undefined) this.latest.set(chart, (slots = []));
+      this.chart = chart;
+      this.latestOfChart = slots;
+    }
+    return this.latestOfChart;
+  }
+
+  /**
+   * Records `signal` as the latest of its rule and inserts it in result order. A new signal starts at
+   * most a window length (15 points) before the firing that makes it, and firings come in index order,
+   * so it moves back past only the few signals started since: no sort at the end.
+   */
+  private place(signal: OpenSignal, order: number): void {
+    this.slotsOf(signal.chart)[order] = signal;
+    const { signals, orders } = this;
+    let position = signals.length;
+    signals.push(signal);
+    orders.push(order);
+    while (position > 0 && precedes(signal, order, signals[position - 1]!, orders[position - 1]!)) {
+      signals[position] = signals[position - 1]!;
+      orders[position] = orders[position - 1]!;
+      position--;
+    }
+    signals[position] = signal;
+    orders[position] = order;
   }
 
   add(rule: RuleId, chart: StatisticKey, index: number, windowStart: number, side: Side): void {
-    const signal = this.latest.get(chart)?.[ruleOrder(rule)];
+    const order = ruleOrder(rule);
+    const signal = this.slotsOf(chart)[order];
     if (signal !== undefined && continues(signal, index, windowStart, side)) {
       signal.end = index;
       signal.firing.push(index);
@@ -68,19 +98,23 @@ export class SignalBuilder {
         side === undefined
           ? { rule, chart, start: windowStart, end: index, firing }
           : { rule, chart, start: windowStart, end: index, firing, side },
+        order,
       );
     }
   }
 
   /** Every signal in order of start, then rule, then statistic. */
   result(): Signal[] {
-    return this.signals.sort(
-      (a, b) =>
-        a.start - b.start ||
-        ruleOrder(a.rule) - ruleOrder(b.rule) ||
-        (a.chart < b.chart ? -1 : a.chart > b.chart ? 1 : 0),
-    );
+    return this.signals;
   }
+}
+
+/**
+ * Whether signal `a` (of rule position `aOrder`) comes strictly before `b` in result order: start, then
+ * rule, then statistic. Equal signals keep their order of creation.
+ */
+function precedes(a: OpenSignal, aOrder: number, b: OpenSignal, bOrder: number): boolean {
+  return a.start !== b.start ? a.start < b.start : aOrder !== bOrder ? aOrder < bOrder : a.chart < b.chart;
 }
 
 /**

@@ -3,7 +3,10 @@
  * signal with the first point of the first window as start, the last firing point as end, and every
  * firing point listed"). Exact comparisons.
  */
+import fc from "fast-check";
 import { describe, expect, test } from "vitest";
+import { RULE_IDS, type StatisticKey } from "@/shared/constants";
+import { ruleOrder } from "@/src/spc/rules/definitions";
 import { continuesSignal, evaluateRules, mergeFirings, type Firing } from "@/src/spc/rules";
 import type { Signal } from "@/src/spc/types";
 import { fixedSeries, repeat } from "./series";
@@ -75,5 +78,42 @@ describe("mergeFirings with open signals (live detection)", () => {
       [0, 9],
       [13, 20],
     ]);
+  });
+});
+
+describe("order of the merged signals", () => {
+  /** The stated order: start, then rule, then statistic; a stable sort keeps creation order among equals. */
+  const byStartRuleStatistic = (a: Signal, b: Signal): number =>
+    a.start - b.start || ruleOrder(a.rule) - ruleOrder(b.rule) || (a.chart < b.chart ? -1 : a.chart > b.chart ? 1 : 0);
+  const charts: StatisticKey[] = ["x", "mr"];
+  // Firings of two statistics and every rule in index order, windows up to 15 points, both sides;
+  // open signals in any order (as live detection may pass them).
+  const firingArbitrary = fc.record({
+    rule: fc.constantFrom(...RULE_IDS),
+    chart: fc.constantFrom(...charts),
+    step: fc.integer({ min: 0, max: 3 }),
+    length: fc.integer({ min: 1, max: 15 }),
+    side: fc.constantFrom("above" as const, "below" as const, undefined),
+  });
+
+  test("every signal in order of start, then rule, then statistic; every firing kept once", () => {
+    fc.assert(
+      fc.property(fc.array(firingArbitrary, { maxLength: 60 }), fc.array(firingArbitrary, { maxLength: 40 }), (open, fed) => {
+        let index = 20;
+        const toFiring = ({ rule, chart, step, length, side }: (typeof open)[number]): Firing => {
+          index += step;
+          const windowStart = Math.max(0, index - length + 1);
+          return side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side };
+        };
+        // Open signals: single firings at indices before the fed ones, shuffled by reversing.
+        const openSignals = mergeFirings(open.map(toFiring)).reverse();
+        const firings = fed.map(toFiring);
+        const signals = mergeFirings(firings, openSignals);
+        expect(signals).toEqual([...signals].sort(byStartRuleStatistic));
+        const count = (list: readonly Signal[]) => list.reduce((total, signal) => total + signal.firing.length, 0);
+        expect(count(signals)).toBe(count(openSignals) + firings.length);
+      }),
+      { numRuns: 300, seed: 3 },
+    );
   });
 });
