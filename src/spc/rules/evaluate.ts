@@ -7,6 +7,7 @@
  */
 import type { RuleId } from "../../../shared/constants";
 import { SpcInputError, type Signal, type StatisticSeries } from "../types";
+import { ruleOrder } from "./definitions";
 import { lowerZoneNotes, planRules, type RuleOptions, type SkippedRule } from "./applicability";
 import { scanWords } from "./batch-scanner";
 import { SignalBuilder } from "./merge";
@@ -60,7 +61,7 @@ function scanSeries(series: StatisticSeries, active: readonly RuleId[], sink: Fi
   restart();
   const firings: Firing[] = [];
   new RuleScanner(series.key, rules, series.center, series.floor).scan(series, 0, series.points.length, 0, firings);
-  for (const { rule, index, windowStart, side } of firings) sink(rule, index, windowStart, side);
+  for (const { rule, index, windowStart, side } of firings) sink(rule, index, windowStart, side, ruleOrder(rule));
 }
 
 /** Every firing of the applicable rules, in index order (what live detection reproduces point by point). */
@@ -91,7 +92,7 @@ export function evaluateRules(
   scanSeries(
     series,
     active,
-    (rule, index, windowStart, side) => builder.add(rule, chart, index, windowStart, side),
+    (rule, index, windowStart, side, order) => builder.add(rule, chart, index, windowStart, side, order),
     () => (builder = new SignalBuilder()),
   );
   return { signals: builder.result(), skipped, notes: lowerZoneNotes(series, active) };

@@ -86,8 +86,8 @@ export class SignalBuilder {
     orders[position] = order;
   }
 
-  add(rule: RuleId, chart: StatisticKey, index: number, windowStart: number, side: Side): void {
-    const order = ruleOrder(rule);
+  /** `order` is the rule's position, ruleOrder(rule) (the scan knows it and passes it). */
+  add(rule: RuleId, chart: StatisticKey, index: number, windowStart: number, side: Side, order = ruleOrder(rule)): void {
     const signal = this.slotsOf(chart)[order];
     if (signal !== undefined && continues(signal, index, windowStart, side)) {
       signal.end = index;

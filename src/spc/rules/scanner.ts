@@ -86,8 +86,17 @@ export interface ScanArrays {
   readonly uniformLimits?: boolean;
 }
 
-/** Receives each firing (of the scanner's statistic) as it is found, in index order. */
-export type FiringSink = (rule: RuleId, index: number, windowStart: number, side: "above" | "below" | undefined) => void;
+/**
+ * Receives each firing (of the scanner's statistic) as it is found, in index order. `order` is the rule's
+ * position (ruleOrder), known to the scanner from the rule's bit, so that merging need not look it up.
+ */
+export type FiringSink = (
+  rule: RuleId,
+  index: number,
+  windowStart: number,
+  side: "above" | "below" | undefined,
+  order: number,
+) => void;
 
 /** Pattern bits computed per point by the scanner (and by the word-parallel batch form, batch-scanner.ts). */
 export const PATTERN_ABOVE_LIMIT = 1;
@@ -172,7 +181,7 @@ function emit(
   windowStart: number,
   side: "above" | "below" | undefined,
 ): void {
-  if ((rules & ruleBit) !== 0) sink(rule, index, windowStart, side);
+  if ((rules & ruleBit) !== 0) sink(rule, index, windowStart, side, 31 - Math.clz32(ruleBit));
 }
 
 export class RuleScanner {

@@ -16,6 +16,7 @@ import fc from "fast-check";
 import { describe, expect, test } from "vitest";
 import { RULE_IDS, type RuleId } from "@/shared/constants";
 import { scanWords } from "@/src/spc/rules/batch-scanner";
+import { ruleOrder } from "@/src/spc/rules/definitions";
 import { RuleScanner, ruleMask, type Firing } from "@/src/spc/rules/scanner";
 import type { StatisticSeries } from "@/src/spc/types";
 
@@ -29,9 +30,11 @@ function scannerFirings(series: StatisticSeries, rules: number): Firing[] {
 function wordFirings(series: StatisticSeries, rules: number): Firing[] | undefined {
   const chart = series.key;
   const firings: Firing[] = [];
-  const complete = scanWords(series, rules, series.center, series.floor, (rule, index, windowStart, side) =>
-    firings.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side }),
-  );
+  const complete = scanWords(series, rules, series.center, series.floor, (rule, index, windowStart, side, order) => {
+    // The rule's position comes with each firing, for the merging; it must be the rule's own.
+    expect(order).toBe(ruleOrder(rule));
+    firings.push(side === undefined ? { rule, chart, index, windowStart } : { rule, chart, index, windowStart, side });
+  });
   return complete ? firings : undefined;
 }
 
