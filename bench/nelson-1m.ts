@@ -9,7 +9,10 @@
  * - The ratio uses the minimum of the repetitions on each side: on a shared, loaded machine every
  *   disturbance (another process taking the core, a cache flushed, a garbage collection or a compiler
  *   thread counted in the process's CPU time) only adds time, so the minimum is the least disturbed
- *   estimate. Medians are printed beside it.
+ *   estimate. Medians are printed beside it. The host of this virtual machine is shared too: in busy
+ *   stretches every rules repetition took 10–11 ms for 6.5 ms in quiet ones (the bare pass, which mostly
+ *   streams memory, moved far less), so 101 repetitions (about 1.5 s) give the minimum a fair chance of a
+ *   quiet stretch; both sides get the same number.
  * - The rules side is the real entry point, `evaluateRules` from src/spc/rules, producing merged signals,
  *   on the `x` statistic of an individuals chart built by the engine (estimateParameters, evaluateChart)
  *   before timing; nothing is cached between repetitions. The bare side is the plainest loop over the
@@ -56,7 +59,7 @@ if (process.env[BUNDLED] === undefined) {
 
 const POINTS = 1_000_000;
 const WARM_UP = 10;
-const REPETITIONS = 41;
+const REPETITIONS = 101;
 const MAXIMUM_RATIO = 10;
 
 interface Sample {
