@@ -69,7 +69,8 @@ export class SignalBuilder {
   /**
    * Records `signal` as the latest of its rule and inserts it in result order. A new signal starts at
    * most a window length (15 points) before the firing that makes it, and firings come in index order,
-   * so it moves back past only the few signals started since: no sort at the end.
+   * so it moves back past only the few signals started since: no sort at the end. (Open signals given
+   * to the constructor may come in any order; they are few.)
    */
   private place(signal: OpenSignal, order: number): void {
     this.slotsOf(signal.chart)[order] = signal;
