@@ -6,7 +6,7 @@
  * slips most often seen in manual data entry (a transposed pair of adjacent digits, a decimal point
  * moved one or two places, a digit left out, a digit typed twice), and keep the candidates that land
  * within `tolerance` standard deviations of the neighbours' level. Transpositions and omissions are the
- * commonest single-keystroke errors in transcription studies (Damerau 1964, "A technique for computer
+ * commonest single-keystroke errors in studies of copied and keyed text (Damerau 1964, "A technique for computer
  * detection and correction of spelling errors", Communications of the ACM 7(3), 171–176, which counts
  * insertion, deletion, substitution and transposition of adjacent characters as the single errors to
  * consider; cited from memory). A substituted digit is left out on purpose: with ten choices per position it explains almost
