@@ -11,8 +11,10 @@ export const chartDataRoute = defineApiRoute({
   description:
     `Per plotted statistic, at most about maxPoints points (default ${DEFAULT_MAX_POINTS}) for the range: every ` +
     `signal point, both sides of every limit step and every corrected point are kept, the rest reduced to the ` +
-    `lowest and highest point of each bucket. Each point carries the limits of the version in force there; ` +
-    `also the limit segments, the signals and the process events in the range.`,
+    `lowest and highest point of each bucket. Each point names the limit version in force there; the limit ` +
+    `segments state their limits once where those are the same at every point, and a point carries its own only ` +
+    `where they vary (varying sample sizes, exact EWMA limits). Fields a point lacks are left out. Also the ` +
+    `signals and the process events in the range.`,
   params: ZIdParams,
   query: ZChartRangeQuery,
   answer: { status: 200, description: "The chart view.", schema: ZChartView.meta({ id: "ChartView" }) },

@@ -1,8 +1,10 @@
 /**
  * Loads what the chart draws for a range of a characteristic's history: per plotted statistic, at most
  * about `maxPoints` points (every signal point, every point where the limits step and every corrected
- * point kept; the rest reduced to each bucket's extremes by ./decimate.ts), each with the limits of the
- * version in force there; the limit segments; the signals and process events in the range.
+ * point kept; the rest reduced to each bucket's extremes by ./decimate.ts), each with the limit version
+ * in force there; the limit segments, which state their limits once where those are the same at every
+ * point (points then carry none, nor any empty field: a million-point history sends tens of thousands of
+ * points); the signals and process events in the range.
  *
  * Speed: a history may hold a million points, so the full range is read as bare columns of the cached
  * per-subgroup summaries (mean, spread, count, size, EWMA and CUSUM state; no measurement is read) into
@@ -71,10 +73,16 @@ const SQL = {
   summaryAt:
     'SELECT "id", "sequence", "timestamp", "mean", "spread", "count", "size", "ewma", "cusumUpper", "cusumLower" FROM "Subgroup" ' +
     'WHERE "characteristicId" = ? AND "sequence" = ?',
-  signals:
+  // A long history has tens of thousands of signals: their firings are read as bare rows of four columns,
+  // and the whole signal only for the few listed.
+  firings:
+    'SELECT "statistic", "rule", "firing", "status" FROM "Signal" ' +
+    'WHERE "characteristicId" = ? AND "endSequence" >= ? AND "startSequence" <= ? ORDER BY "startSequence", "id"',
+  listedSignals:
     'SELECT s."id", s."rule", s."statistic", s."startSequence", s."endSequence", s."firing", s."side", s."pattern", ' +
     's."status", s."detectedAt", l."version" AS "limitSetVersion" FROM "Signal" s JOIN "LimitSet" l ON l."id" = s."limitSetId" ' +
-    'WHERE s."characteristicId" = ? AND s."endSequence" >= ? AND s."startSequence" <= ? ORDER BY s."startSequence", s."id"',
+    'WHERE s."characteristicId" = ? AND s."endSequence" >= ? AND s."startSequence" <= ? ' +
+    `ORDER BY s."endSequence" DESC, s."id" DESC LIMIT ${LISTED_SIGNALS}`,
   timestampAt: 'SELECT "timestamp" FROM "Subgroup" WHERE "characteristicId" = ? AND "sequence" = ?',
   // CROSS JOIN: the corrections are few, the subgroups of a range may be a million; walk the corrections.
   corrections:
@@ -112,9 +120,14 @@ function readStatistics(
       // One point before the range gives the first moving range; a segment's first moving range is undefined.
       const before = from > history.first ? cachedColumn(database, "mean", characteristicId, history, { from: from - 1, to: from - 1 })[0]! : Number.NaN;
       const values = column("mean");
-      const ranges = values.map((value, index) =>
-        segmentStarts.has(from + index) ? Number.NaN : Math.abs(value - (index === 0 ? before : values[index - 1]!)),
-      );
+      // A plain loop: this runs over up to a million values at every request.
+      const ranges = new Float64Array(values.length);
+      let previous = before;
+      for (let index = 0; index < values.length; index++) {
+        ranges[index] = Math.abs(values[index]! - previous);
+        previous = values[index]!;
+      }
+      for (const start of segmentStarts) if (start >= from && start - from < ranges.length) ranges[start - from] = Number.NaN;
       return [values, ranges];
     }
     case "xbar-r":
@@ -248,14 +261,19 @@ export function loadChartView(database: Database.Database, characteristicId: num
     const segments = limitSegments(limitSets);
     const segmentStarts = new Set(segments.map((segment) => segment.from));
 
-    const signalRows = database.prepare(SQL.signals).all(characteristicId, from, to) as TSignalRow[];
+    const firingRows = database.prepare(SQL.firings).raw(true).all(characteristicId, from, to) as [StatisticKey, RuleId, string, string][];
     // Rules firing at each point, per statistic: a panel marks and keeps its own statistic's signal points.
     const firedAt = new Map<StatisticKey, Map<number, RuleId[]>>(keys.map((key) => [key, new Map()]));
-    for (const signal of signalRows) {
-      const fired = firedAt.get(signal.statistic);
+    let openSignals = 0;
+    for (const [statistic, rule, firing, status] of firingRows) {
+      if (status === "new") openSignals++;
+      const fired = firedAt.get(statistic);
       if (fired === undefined) continue;
-      for (const sequence of JSON.parse(signal.firing) as number[]) {
-        if (sequence >= from && sequence <= to) fired.set(sequence, [...(fired.get(sequence) ?? []), signal.rule]);
+      for (const sequence of JSON.parse(firing) as number[]) {
+        if (sequence < from || sequence > to) continue;
+        const rules = fired.get(sequence);
+        if (rules === undefined) fired.set(sequence, [rule]);
+        else rules.push(rule);
       }
     }
     const correctionRows = database.prepare(SQL.corrections).all(characteristicId, from, to) as TCorrectionRow[];
@@ -293,28 +311,43 @@ export function loadChartView(database: Database.Database, characteristicId: num
         bucketOf.set(bucket.minIndex, span);
         bucketOf.set(bucket.maxIndex, span);
       }
-      const points: TChartPoint[] = decimation.indices.map((index) => {
-        const sequence = index + from;
-        const segment = segmentAt(segments, sequence);
+      const sequences = decimation.indices.map((index) => index + from);
+      const segmentOf = sequences.map((sequence) => segmentAt(segments, sequence));
+      const limits = sequences.map((sequence, position) => {
+        const segment = segmentOf[position];
+        return segment === undefined ? null : limitsOf(segment, sequence, rowAt)[statisticIndex]!;
+      });
+      const limitSegmentsShown = segmentsIn(segments, sequences, limits, from, to);
+      const constantIn = new Map(limitSegmentsShown.map((shown) => [shown.version, shown.constantLimits]));
+      // Only what a point has is written (see ZChartPoint): a long history sends tens of thousands of them.
+      const points = decimation.indices.map((index, position): TChartPoint => {
+        const sequence = sequences[position]!;
+        const segment = segmentOf[position];
         const value = plotted[index]!;
-        const corrections = correctionsAt.get(sequence) ?? [];
-        return {
+        const point: TChartPoint = {
           sequence,
           timestamp: isoTime(timestamps.get(sequence)!),
           value: Number.isNaN(value) ? null : value,
           version: segment?.limitSet.version ?? null,
-          limits: segment === undefined ? null : limitsOf(segment, sequence, rowAt)[statisticIndex]!,
-          firedRules: firedAt.get(key)!.get(sequence) ?? [],
-          bucket: bucketOf.get(index) ?? null,
-          originalValue: statisticIndex === 0 ? originalOf(database, chart, rowAt, sequence, corrections) : null,
-          corrections: corrections.map(toPointCorrection),
         };
+        if (segment !== undefined && constantIn.get(segment.limitSet.version) === null) point.limits = limits[position]!;
+        const firedRules = firedAt.get(key)!.get(sequence);
+        if (firedRules !== undefined) point.firedRules = firedRules;
+        const bucket = bucketOf.get(index);
+        if (bucket !== undefined) point.bucket = bucket;
+        const corrections = correctionsAt.get(sequence);
+        if (corrections !== undefined) {
+          const originalValue = statisticIndex === 0 ? originalOf(database, chart, rowAt, sequence, corrections) : null;
+          if (originalValue !== null) point.originalValue = originalValue;
+          point.corrections = corrections.map(toPointCorrection);
+        }
+        return point;
       });
       return {
         key,
         label: STATISTIC_LABELS[key],
         points,
-        segments: segmentsIn(segments, points, from, to),
+        segments: limitSegmentsShown,
         pointsInRange: to - from + 1,
         decimated: decimation.buckets.length > 0,
       };
@@ -324,7 +357,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       const stored = timestamps.get(sequence) ?? (database.prepare(SQL.timestampAt).pluck(true).get(characteristicId, sequence) as string | undefined);
       return stored === undefined ? null : isoTime(stored);
     };
-    const latestRows = [...signalRows].sort((a, b) => b.endSequence - a.endSequence || b.id - a.id).slice(0, LISTED_SIGNALS);
+    const latestRows = database.prepare(SQL.listedSignals).all(characteristicId, from, to) as TSignalRow[];
     const signals: TChartSignal[] = latestRows.map((row) => {
       const firing = JSON.parse(row.firing) as number[];
       const lastFiring = firing.at(-1);
@@ -350,7 +383,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       history: { first, last },
       range: { from, to },
       statistics,
-      signalCounts: { total: signalRows.length, open: signalRows.filter((row) => row.status === "new").length },
+      signalCounts: { total: firingRows.length, open: openSignals },
       signals,
       events: eventsIn(database, characteristic, timestamps.get(from)!, timestamps.get(to)!),
     };
@@ -364,7 +397,6 @@ function originalOf(
   sequence: number,
   corrections: readonly TCorrectionRow[],
 ): number | null {
-  if (corrections.length === 0) return null;
   const row = rowAt(sequence);
   const values = database.prepare(SQL.measurements).pluck(true).all(row.id) as number[];
   return originalStatistic(
@@ -387,18 +419,27 @@ function toPointCorrection(row: TCorrectionRow): TPointCorrection {
 }
 
 /**
- * Each limit version over the part of [from, to] it applies to; its limits stated once where every point
- * of it has the same (the kept points include each segment's first point in the range).
+ * Each limit version over the part of [from, to] it applies to; its limits stated once where every kept
+ * point of it has the same (the kept points include each segment's first point in the range).
  */
-function segmentsIn(segments: readonly TSegment<TLimitSetRow>[], points: readonly TChartPoint[], from: number, to: number): TLimitSegment[] {
+function segmentsIn(
+  segments: readonly TSegment<TLimitSetRow>[],
+  sequences: readonly number[],
+  limits: readonly (TPointLimits | null)[],
+  from: number,
+  to: number,
+): TLimitSegment[] {
   return segments
     .filter((segment) => segment.from <= to && segment.to > from)
     .map((segment) => {
       const fromSequence = Math.max(segment.from, from);
       const toSequence = Math.min(segment.to - 1, to);
-      const inside = points.filter((point) => point.sequence >= fromSequence && point.sequence <= toSequence && point.limits !== null);
-      const firstLimits = inside[0]?.limits ?? null;
-      const constant = firstLimits !== null && inside.every((point) => sameLimits(point.limits!, firstLimits));
+      const inside = limits.filter((pointLimits, position): pointLimits is TPointLimits => {
+        const sequence = sequences[position]!;
+        return sequence >= fromSequence && sequence <= toSequence && pointLimits !== null;
+      });
+      const firstLimits = inside[0] ?? null;
+      const constant = firstLimits !== null && inside.every((pointLimits) => sameLimits(pointLimits, firstLimits));
       return {
         version: segment.limitSet.version,
         limitSetId: segment.limitSet.id,

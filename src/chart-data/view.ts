@@ -53,6 +53,11 @@ export const ZPointCorrection = z.object({
 });
 export type TPointCorrection = z.infer<typeof ZPointCorrection>;
 
+/**
+ * One drawn point. Compact, since a long history sends tens of thousands: what a point does not have is
+ * left out (no limits of its own, no rule fired, not a bucket extreme, never corrected), never sent as
+ * null or an empty list; a null bucket or original value, or an empty list, is still accepted and means the same.
+ */
 export const ZChartPoint = z.object({
   sequence: z.number().int(),
   timestamp: z.string(),
@@ -60,14 +65,20 @@ export const ZChartPoint = z.object({
   value: z.number().nullable(),
   /** Limit version in force for this point, or null before the first limit set applies. */
   version: z.number().int().nullable(),
-  limits: ZPointLimits.nullable(),
-  /** Rules that fire at this point (any statistic's signal: the point is marked on every panel). */
-  firedRules: z.array(z.enum(RULE_IDS)),
+  /**
+   * The limits at this point, present only where they vary within its segment (p and u charts with
+   * varying sizes, EWMA exact limits). Absent: the segment's `constantLimits` apply (none outside every
+   * segment, before the first limit set); null: no limits at this point.
+   */
+  limits: ZPointLimits.nullish(),
+  /** Rules that fire at this point (any statistic's signal: the point is marked on every panel); absent: none. */
+  firedRules: z.array(z.enum(RULE_IDS)).optional(),
   /** Where decimated: the lowest and highest value of the bucket of points this one stands for. */
-  bucket: z.object({ from: z.number().int(), to: z.number().int(), min: z.number(), max: z.number() }).nullable(),
-  /** The plotted statistic as recorded, before corrections, where it can be computed; else null. */
-  originalValue: z.number().nullable(),
-  corrections: z.array(ZPointCorrection),
+  bucket: z.object({ from: z.number().int(), to: z.number().int(), min: z.number(), max: z.number() }).nullish(),
+  /** The plotted statistic as recorded, before corrections, where it can be computed; absent otherwise. */
+  originalValue: z.number().nullish(),
+  /** The corrections of this subgroup; absent when it was never corrected. */
+  corrections: z.array(ZPointCorrection).optional(),
 });
 export type TChartPoint = z.infer<typeof ZChartPoint>;
 
@@ -77,7 +88,7 @@ export const ZLimitSegment = z.object({
   limitSetId: z.number().int(),
   fromSequence: z.number().int(),
   toSequence: z.number().int(),
-  /** The limits where they are the same at every point of the segment; null where they vary per point. */
+  /** The limits where they are the same at every point of the segment (its points then carry none); null where they vary per point. */
   constantLimits: ZPointLimits.nullable(),
 });
 export type TLimitSegment = z.infer<typeof ZLimitSegment>;

@@ -30,6 +30,7 @@ function PointTooltip({ active, payload, unit }: TooltipContentProps & { unit: s
   const row = payload?.[0]?.payload as TChartRow | undefined;
   if (!active || row === undefined) return null;
   const { point } = row;
+  const { bucket, firedRules = [] } = point;
   return (
     <div className="chart-tooltip">
       <p>
@@ -39,13 +40,13 @@ function PointTooltip({ active, payload, unit }: TooltipContentProps & { unit: s
         {point.value === null ? "No value" : `${formatValue(point.value)} ${unit}`}
         {point.version !== null && ` · limits v${point.version}`}
       </p>
-      {point.bucket !== null && (
+      {bucket && (
         <p>
-          Stands for subgroups {point.bucket.from}–{point.bucket.to}: {formatValue(point.bucket.min)} to {formatValue(point.bucket.max)}
+          Stands for subgroups {bucket.from}–{bucket.to}: {formatValue(bucket.min)} to {formatValue(bucket.max)}
         </p>
       )}
-      {point.firedRules.length > 0 && <p className="chart-tooltip-signal">▲ Signal: {point.firedRules.join(", ")}</p>}
-      {point.corrections.map((correction, index) => (
+      {firedRules.length > 0 && <p className="chart-tooltip-signal">▲ Signal: {firedRules.join(", ")}</p>}
+      {(point.corrections ?? []).map((correction, index) => (
         <p key={index}>
           Recorded {formatValue(correction.recorded)}, corrected to {formatValue(correction.corrected)}: {correction.reason} ({correction.correctedBy})
         </p>

@@ -7,6 +7,7 @@ import path from "node:path";
 import Database from "better-sqlite3";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { loadChartView } from "@/src/chart-data/load";
+import type { TChartPoint, TPointLimits, TStatisticView } from "@/src/chart-data/view";
 import { createCharacteristic } from "@/src/characteristics/setup";
 import { createPrismaClient, type PrismaClient } from "@/src/db/connect";
 import { applyMigrations } from "@/src/db/migrations/apply-migrations";
@@ -14,7 +15,7 @@ import { recordEvent } from "@/src/events";
 import { chartParametersOf, limitSetsFor, reviseLimits } from "@/src/limits";
 import { signalsFor } from "@/src/signals";
 import { evaluateChart } from "@/src/spc/charts";
-import { individualsData } from "@/src/spc/data";
+import { attributesData, individualsData } from "@/src/spc/data";
 import { createRng } from "@/src/spc/random";
 import { appendSubgroups, correctValue } from "@/src/subgroups";
 import { registerTemporaryDirectories } from "../db/temporary-directory";
@@ -64,6 +65,12 @@ afterAll(async () => {
   await prisma?.$disconnect();
 });
 
+/** A point's limits: its own where they vary within the segment, else the segment's (see ZChartPoint). */
+function limitsOf(statistic: TStatisticView, point: TChartPoint): TPointLimits | null {
+  const segment = statistic.segments.find((candidate) => candidate.fromSequence <= point.sequence && point.sequence <= candidate.toSequence);
+  return point.limits ?? segment?.constantLimits ?? null;
+}
+
 describe("loadChartView", () => {
   test("whole history within the budget: every point, values and limits equal the engine's per version", async () => {
     const view = loadChartView(database, characteristicId);
@@ -83,10 +90,44 @@ describe("loadChartView", () => {
           const value = series.points[index]!;
           expect(point.value).toBe(Number.isNaN(value) ? null : value);
           expect(point.version).toBe(limitSet.version);
-          expect(point.limits).toMatchObject({ center: series.center, ucl: series.ucl[index], lcl: series.lcl[index] });
+          expect(limitsOf(view.statistics[statisticIndex]!, point)).toMatchObject({ center: series.center, ucl: series.ucl[index], lcl: series.lcl[index] });
         }
       }
     }
+  });
+
+  test("points carry only what they have: no null or empty field, and no limits where the segment states them", () => {
+    const view = loadChartView(database, characteristicId);
+    for (const statistic of view.statistics) {
+      for (const segment of statistic.segments) expect(segment.constantLimits).not.toBeNull();
+      for (const point of statistic.points) {
+        expect(point).not.toHaveProperty("limits");
+        for (const field of ["firedRules", "bucket", "originalValue", "corrections"] as const) {
+          if (field in point) expect(point[field] === null || (Array.isArray(point[field]) && point[field].length === 0)).toBe(false);
+        }
+      }
+    }
+    const corrected = view.statistics[0]!.points[CORRECTED]!;
+    expect(Object.keys(corrected).sort()).toEqual(["corrections", "originalValue", "sequence", "timestamp", "value", "version"]);
+  });
+
+  test("a p chart with varying sample sizes: each point carries its own limits, equal to the engine's", async () => {
+    const process = await prisma.process.findFirstOrThrow();
+    const pChart = await createCharacteristic(prisma, { processId: process.id, name: "Short shots", unit: "items", chartType: "p", subgroupSize: 1 });
+    // Invented counts: sizes alternate among three values, so the limits differ from point to point.
+    const sizes = Array.from({ length: 30 }, (_, index) => [80, 100, 125][index % 3]!);
+    const counts = sizes.map((size, index) => Math.round(size * (0.05 + 0.01 * ((index * 7) % 5))));
+    const subgroups = sizes.map((size, index) => ({ timestamp: new Date(START + index * 3_600_000).toISOString(), count: counts[index]!, size }));
+    await appendSubgroups(prisma, pChart.id, subgroups, { source: "api", now: NOW });
+    await reviseLimits(prisma, pChart.id, { baselineStart: 0, baselineEnd: 30, reason: "first limits", approvedBy: "Test lead" }, NOW);
+    const [limitSet] = await limitSetsFor(prisma, pChart.id);
+    const expected = evaluateChart(attributesData(counts, sizes), chartParametersOf("p", limitSet!)).statistics[0]!;
+    const [p] = loadChartView(database, pChart.id).statistics;
+    expect(p!.segments).toHaveLength(1);
+    expect(p!.segments[0]!.constantLimits).toBeNull();
+    p!.points.forEach((point, index) => {
+      expect(point.limits).toMatchObject({ center: expected.center, ucl: expected.ucl[index], lcl: expected.lcl[index] });
+    });
   });
 
   test("limits step where the version changes, and the segments say which version applies to which points", () => {
@@ -95,8 +136,8 @@ describe("loadChartView", () => {
       { version: 1, fromSequence: 0, toSequence: SECOND_VERSION_FROM - 1 },
       { version: 2, fromSequence: SECOND_VERSION_FROM, toSequence: POINTS - 1 },
     ]);
-    const before = x!.points[SECOND_VERSION_FROM - 1]!.limits!;
-    const after = x!.points[SECOND_VERSION_FROM]!.limits!;
+    const before = limitsOf(x!, x!.points[SECOND_VERSION_FROM - 1]!)!;
+    const after = limitsOf(x!, x!.points[SECOND_VERSION_FROM]!)!;
     expect(after.center).not.toBe(before.center);
     expect(x!.segments[0]!.constantLimits).toEqual(before);
     // Warning limits at 2σ: two thirds of the way from the centre to the 3σ action limit.
@@ -138,7 +179,7 @@ describe("loadChartView", () => {
   test("a corrected point carries the value as recorded, who corrected it and why", () => {
     const view = loadChartView(database, characteristicId, { fromSequence: 20, toSequence: 30 });
     const point = view.statistics[0]!.points.find((candidate) => candidate.sequence === CORRECTED)!;
-    const recorded = point.corrections[0]!.recorded;
+    const recorded = point.corrections![0]!.recorded;
     expect(point.value).toBe(10.05);
     expect(point.originalValue).toBe(recorded);
     expect(point.corrections).toEqual([
