@@ -1,12 +1,13 @@
 /**
  * What the HTTP API answers, as zod schemas: the route handlers shape every answer through these (unknown
  * fields are dropped, a wrong answer is a bug caught before it leaves the server), and the OpenAPI
- * document (src/api/openapi.ts) is generated from them. Request schemas live in shared/intake.ts.
+ * document (src/api/openapi.ts) is generated from them. Request schemas live in shared/intake.ts, except
+ * those only the API takes (path ids, query ranges, a change of settings), which build on them here.
  * Depends on zod and shared/ only; `.meta({ id })` names each schema in the document's components.
  */
 import { z } from "zod";
 import { CAUSE_CATEGORIES, CHART_TYPES, EVENT_KINDS, RULE_IDS, STATISTIC_KEYS } from "./constants";
-import { ZTimestamp } from "./intake";
+import { ZCharacteristicInput, ZLimitRevisionInput, ZTimestamp } from "./intake";
 import { PATTERN_KINDS } from "./patterns";
 
 /** Error codes the API answers with: the application's codes, then the HTTP layer's own. */
@@ -128,6 +129,36 @@ export const ZCharacteristicView = z
   })
   .meta({ id: "Characteristic" });
 
+const SETTINGS = ZCharacteristicInput.shape;
+
+/**
+ * A change of a characteristic's settings: any of the setup fields (each validated as on setup), and who
+ * changes them. The fields left out keep their values; the result is validated whole again by the domain
+ * (a lower specification limit raised above the upper one is refused there). Defaults are removed so
+ * that a field left out is not reset, and the optional fields accept null to clear them. `.partial()`
+ * cannot be used: zod refuses it on a schema with cross-field checks.
+ */
+export const ZCharacteristicChange = z
+  .object({
+    processId: SETTINGS.processId.optional(),
+    name: SETTINGS.name.optional(),
+    unit: SETTINGS.unit.optional(),
+    chartType: SETTINGS.chartType.optional(),
+    subgroupSize: SETTINGS.subgroupSize.optional(),
+    target: SETTINGS.target.unwrap().nullable().optional(),
+    lowerSpecLimit: SETTINGS.lowerSpecLimit.unwrap().nullable().optional(),
+    upperSpecLimit: SETTINGS.upperSpecLimit.unwrap().nullable().optional(),
+    ruleSet: SETTINGS.ruleSet.removeDefault().optional(),
+    safetyRelated: SETTINGS.safetyRelated.removeDefault().optional(),
+    description: SETTINGS.description.unwrap().nullable().optional(),
+    changedBy: ZLimitRevisionInput.shape.approvedBy.meta({
+      description: "Who makes the change (recorded with the re-evaluation a changed rule set causes); accounts come later.",
+    }),
+  })
+  .strict()
+  .meta({ id: "CharacteristicChange", description: "The settings to change; null clears an optional one." });
+export type TCharacteristicChange = z.infer<typeof ZCharacteristicChange>;
+
 export const ZCharacteristicList = z
   .object({ characteristics: z.array(ZCharacteristicView) })
   .meta({ id: "CharacteristicList" });
@@ -199,3 +230,29 @@ export const ZEventView = z
   .meta({ id: "ProcessEvent" });
 
 export const ZEventList = z.object({ events: z.array(ZEventView) }).meta({ id: "ProcessEventList" });
+
+export const ZLimitSetView = ZLimitsInForce.extend({
+  appliesTo: z
+    .object({
+      from: z.number().int().meta({ description: "First subgroup sequence judged against this version." }),
+      to: z.number().int().nullable().meta({ description: "End (exclusive); null while new subgroups join this version." }),
+    })
+    .nullable()
+    .meta({ description: "The subgroups this version applies to; null when later versions supersede it everywhere." }),
+}).meta({ id: "LimitSet", description: "One frozen limit version and the subgroups it applies to." });
+
+export const ZLimitSetList = z.object({ limitSets: z.array(ZLimitSetView) }).meta({ id: "LimitSetList" });
+
+export const ZLimitRevisionAnswer = z
+  .object({
+    limitSet: ZLimitSetView,
+    reevaluation: z
+      .object({
+        id: z.number().int(),
+        at: ZInstant,
+        signalsBefore: z.number().int(),
+        signalsAfter: z.number().int(),
+      })
+      .meta({ description: "The re-evaluation of the stored signals the new version caused, recorded with it." }),
+  })
+  .meta({ id: "LimitRevisionAnswer" });

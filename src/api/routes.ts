@@ -4,17 +4,20 @@
  */
 import { z } from "zod";
 import {
+  ZCharacteristicChange,
   ZCharacteristicList,
   ZCharacteristicView,
   ZEventList,
   ZEventView,
   ZIdParams,
+  ZLimitRevisionAnswer,
+  ZLimitSetList,
   ZSequenceRangeQuery,
   ZSignalList,
   ZSubgroupsPostAnswer,
   ZTimeRangeQuery,
 } from "@/shared/api";
-import { INTAKE_LIMITS, ZEventInput, ZSubgroupsPost } from "@/shared/intake";
+import { INTAKE_LIMITS, ZCharacteristicInput, ZEventInput, ZLimitRevisionInput, ZSubgroupsPost } from "@/shared/intake";
 import { chartDataRoute } from "@/src/chart-data/api-route";
 import { ZImportOptions } from "@/src/imports/options";
 import { MAX_IMPORT_BYTES } from "@/src/imports/upload";
@@ -40,6 +43,63 @@ export const getCharacteristicRoute = defineApiRoute({
   params: ZIdParams,
   answer: { status: 200, description: "The characteristic.", schema: ZCharacteristicView },
   errors: [404, 422],
+});
+
+export const createCharacteristicRoute = defineApiRoute({
+  method: "post",
+  path: "/characteristics",
+  tag: "Characteristics",
+  summary: "Set up a characteristic: process, name, unit, chart type, subgroup size, specification, rule set",
+  description:
+    "The name must be new on its process (409 otherwise); an unknown process answers 404. The subgroup size must " +
+    "fit the chart: 1 on an individuals chart, at least 2 on X-bar charts.",
+  body: ZCharacteristicInput.meta({ id: "CharacteristicInput" }),
+  answer: { status: 201, description: "The characteristic, with no subgroups and no limits yet.", schema: ZCharacteristicView },
+  errors: [...BODY_ERRORS, 404, 409],
+});
+
+export const updateCharacteristicRoute = defineApiRoute({
+  method: "post",
+  path: "/characteristics/{id}",
+  tag: "Characteristics",
+  summary: "Change some of a characteristic's settings",
+  description:
+    "Fields left out keep their values; the result is checked whole, as on setup. Once subgroups are stored the " +
+    "chart type, subgroup size and process cannot change (409). A changed rule set re-evaluates the stored " +
+    "signals, recorded with `changedBy`.",
+  params: ZIdParams,
+  body: ZCharacteristicChange,
+  answer: { status: 200, description: "The characteristic as changed.", schema: ZCharacteristicView },
+  errors: [...BODY_ERRORS, 404, 409],
+});
+
+export const listLimitSetsRoute = defineApiRoute({
+  method: "get",
+  path: "/characteristics/{id}/limit-sets",
+  tag: "Characteristics",
+  summary: "Every limit version of a characteristic, oldest first, with the subgroups each applies to",
+  params: ZIdParams,
+  answer: { status: 200, description: "The limit versions.", schema: ZLimitSetList },
+  errors: [404, 422],
+});
+
+export const reviseLimitsRoute = defineApiRoute({
+  method: "post",
+  path: "/characteristics/{id}/limit-sets",
+  tag: "Characteristics",
+  summary: "Compute a new limit version from a baseline of stored subgroups, freeze it and re-evaluate the signals",
+  description:
+    "The baseline is the stored subgroups with sequences baselineStart up to (not including) baselineEnd, minus the " +
+    "excluded ones, each with its reason; a reason for the new version is required. The version applies from " +
+    "baselineStart on; a baseline beyond the stored subgroups, or one too small or without variation, is refused (422).",
+  params: ZIdParams,
+  body: ZLimitRevisionInput.meta({ id: "LimitRevisionInput" }),
+  answer: {
+    status: 201,
+    description: "The new frozen version with the subgroups it applies to, and the re-evaluation it caused.",
+    schema: ZLimitRevisionAnswer,
+  },
+  errors: [...BODY_ERRORS, 404],
 });
 
 export const postSubgroupsRoute = defineApiRoute({
@@ -146,7 +206,11 @@ export const openApiRoute = defineApiRoute({
 
 export const API_ROUTES: readonly TApiRoute[] = [
   listCharacteristicsRoute,
+  createCharacteristicRoute,
   getCharacteristicRoute,
+  updateCharacteristicRoute,
+  listLimitSetsRoute,
+  reviseLimitsRoute,
   postSubgroupsRoute,
   listSignalsRoute,
   chartDataRoute,

@@ -1,6 +1,6 @@
 import { apiHandler } from "@/src/api/handler";
-import { listCharacteristicsRoute } from "@/src/api/routes";
-import { getCharacteristic } from "@/src/characteristics/setup";
+import { createCharacteristicRoute, listCharacteristicsRoute } from "@/src/api/routes";
+import { createCharacteristic, getCharacteristic } from "@/src/characteristics/setup";
 
 export const dynamic = "force-dynamic";
 
@@ -11,3 +11,5 @@ export const GET = apiHandler(listCharacteristicsRoute, async ({ database }) => 
   for (const { id } of rows) characteristics.push(await getCharacteristic(database, id));
   return { characteristics };
 });
+
+export const POST = apiHandler(createCharacteristicRoute, ({ database, body }) => createCharacteristic(database, body));
