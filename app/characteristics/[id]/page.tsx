@@ -61,6 +61,7 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
         <Link href={`/characteristics/${characteristic.id}/entry`}>Enter a subgroup</Link>
         <Link href={`/characteristics/${characteristic.id}/import`}>Import a file</Link>
         <Link href={`/characteristics/${characteristic.id}/settings`}>Settings and limits</Link>
+        <Link href={`/characteristics/${characteristic.id}/corrections`}>Correct a recorded value</Link>
         <Link href={`/processes/${characteristic.processId}/events`}>Event log of {characteristic.process.name}</Link>
       </nav>
       <p className="facts-line">
