@@ -125,51 +125,74 @@ export const ZSubgroupInput = z
   .strict();
 export type TSubgroupInput = z.infer<typeof ZSubgroupInput>;
 
+/** The measurement fields of a subgroup that the chart rules look at. */
+export interface TSubgroupMeasurements {
+  readonly values?: readonly number[];
+  readonly count?: number;
+  readonly size?: number;
+  readonly units?: number;
+}
+
+/** A broken chart rule: the subgroup field it concerns and why. */
+export interface TSubgroupProblem {
+  readonly path: "values" | "count" | "size" | "units";
+  readonly message: string;
+}
+
+const NO_SUBGROUP_PROBLEMS: readonly TSubgroupProblem[] = Object.freeze([]);
+
+/**
+ * The chart rules for one subgroup whose fields are already valid on their own (`ZSubgroupInput`): which
+ * fields the chart needs and which it cannot use, the subgroup size, counts within sample sizes, the np
+ * sample size. The one definition of these rules: `subgroupSchemaFor` applies it after zod's field checks,
+ * and the CSV import, whose cells zod has already checked, calls it on each assembled subgroup directly.
+ */
+export function subgroupProblems(chartType: ChartType, subgroupSize: number, input: TSubgroupMeasurements): readonly TSubgroupProblem[] {
+  let problems: TSubgroupProblem[] | undefined;
+  const add = (path: TSubgroupProblem["path"], message: string) => (problems ??= []).push({ path, message });
+  const chart = `on a ${chartType} chart`;
+  const need = (field: TSubgroupProblem["path"], present: boolean) => {
+    if (!present) add(field, `is required ${chart}`);
+  };
+  const forbid = (field: TSubgroupProblem["path"], present: boolean) => {
+    if (present) add(field, `is not used ${chart}`);
+  };
+  if (VARIABLES_CHART_TYPES.includes(chartType)) {
+    need("values", input.values !== undefined);
+    forbid("count", input.count !== undefined);
+    forbid("size", input.size !== undefined);
+    forbid("units", input.units !== undefined);
+    if (input.values && input.values.length !== subgroupSize) {
+      add("values", `must hold exactly ${subgroupSize} value${subgroupSize === 1 ? "" : "s"} (the subgroup size of this characteristic)`);
+    }
+    return problems ?? NO_SUBGROUP_PROBLEMS;
+  }
+  forbid("values", input.values !== undefined);
+  need("count", input.count !== undefined);
+  if (chartType === "p" || chartType === "np") {
+    need("size", input.size !== undefined);
+    forbid("units", input.units !== undefined);
+    if (input.count !== undefined && input.size !== undefined && input.count > input.size) {
+      add("count", "must not exceed the number inspected (size)");
+    }
+    if (chartType === "np" && input.size !== undefined && input.size !== subgroupSize) {
+      add("size", `must equal the characteristic's sample size ${subgroupSize} on an np chart`);
+    }
+  } else if (chartType === "u") {
+    need("units", input.units !== undefined);
+    forbid("size", input.size !== undefined);
+  } else {
+    forbid("size", input.size !== undefined);
+    forbid("units", input.units !== undefined);
+  }
+  return problems ?? NO_SUBGROUP_PROBLEMS;
+}
+
 /** The subgroup schema for one characteristic: the fields its chart needs, and no others. */
 export function subgroupSchemaFor(chartType: ChartType, subgroupSize: number) {
   return ZSubgroupInput.superRefine((input, context) => {
-    const need = (field: "values" | "count" | "size" | "units", present: boolean, why: string) => {
-      if (!present) context.addIssue({ code: "custom", path: [field], message: `is required ${why}` });
-    };
-    const forbid = (field: "values" | "count" | "size" | "units", present: boolean, why: string) => {
-      if (present) context.addIssue({ code: "custom", path: [field], message: `is not used ${why}` });
-    };
-    const chart = `on a ${chartType} chart`;
-    if (VARIABLES_CHART_TYPES.includes(chartType)) {
-      need("values", input.values !== undefined, chart);
-      forbid("count", input.count !== undefined, chart);
-      forbid("size", input.size !== undefined, chart);
-      forbid("units", input.units !== undefined, chart);
-      if (input.values && input.values.length !== subgroupSize) {
-        context.addIssue({
-          code: "custom",
-          path: ["values"],
-          message: `must hold exactly ${subgroupSize} value${subgroupSize === 1 ? "" : "s"} (the subgroup size of this characteristic)`,
-        });
-      }
-      return;
-    }
-    forbid("values", input.values !== undefined, chart);
-    need("count", input.count !== undefined, chart);
-    if (chartType === "p" || chartType === "np") {
-      need("size", input.size !== undefined, chart);
-      forbid("units", input.units !== undefined, chart);
-      if (input.count !== undefined && input.size !== undefined && input.count > input.size) {
-        context.addIssue({ code: "custom", path: ["count"], message: "must not exceed the number inspected (size)" });
-      }
-      if (chartType === "np" && input.size !== undefined && input.size !== subgroupSize) {
-        context.addIssue({
-          code: "custom",
-          path: ["size"],
-          message: `must equal the characteristic's sample size ${subgroupSize} on an np chart`,
-        });
-      }
-    } else if (chartType === "u") {
-      need("units", input.units !== undefined, chart);
-      forbid("size", input.size !== undefined, chart);
-    } else {
-      forbid("size", input.size !== undefined, chart);
-      forbid("units", input.units !== undefined, chart);
+    for (const problem of subgroupProblems(chartType, subgroupSize, input)) {
+      context.addIssue({ code: "custom", path: [problem.path], message: problem.message });
     }
   });
 }

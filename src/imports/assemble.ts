@@ -1,9 +1,14 @@
 /**
  * Rows → subgroups, in file order. Rows sharing a subgroup id and standing together form one subgroup
  * (without a subgroup column every row is one subgroup); each finished subgroup is checked with the
- * shared `subgroupSchemaFor` (the same check as the HTTP API and manual entry: sizes against the
- * characteristic, counts within sizes), its tags must agree across its rows, and its time must not go
- * back before the previous accepted subgroup's. A subgroup with any bad row is rejected as a whole.
+ * shared chart rules `subgroupProblems` (the rules `subgroupSchemaFor` applies for the HTTP API and manual
+ * entry: sizes against the characteristic, counts within sizes), its tags must agree across its rows, and
+ * its time must not go back before the previous accepted subgroup's. A subgroup with any bad row is
+ * rejected as a whole. The rules are called directly rather than through the whole subgroup schema: every
+ * field it would check again has already passed zod in the row reader (finite numbers, whole non-negative
+ * counts, positive sizes and units, tag values; tag names and their number in the import options), and the
+ * time is a parsed instant, so a second zod parse per subgroup would only repeat those checks at a cost
+ * close to the row checks themselves.
  *
  * Source key (what makes a re-import add nothing): the subgroup's content itself, not a digest of it:
  * "csv:<time in epoch ms>:<numbers>:<occurrence>:<subgroup id>", where the numbers are the values
@@ -15,7 +20,7 @@
  * are not part of the key, so renaming a tag in a re-export does not duplicate measurements.
  */
 import { VARIABLES_CHART_TYPES, type ChartType } from "@/shared/constants";
-import { subgroupSchemaFor } from "@/shared/intake";
+import { subgroupProblems, ZTimestamp } from "@/shared/intake";
 import type { CsvProblem } from "@/src/io/csv/errors";
 import type { TRecorded } from "@/src/subgroups/summaries";
 import type { TColumnMapping } from "./options";
@@ -56,7 +61,6 @@ export interface TAssemblerOutput {
 
 export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgroupSize: number, output: TAssemblerOutput) {
   const variables = VARIABLES_CHART_TYPES.includes(chart);
-  const schema = subgroupSchemaFor(chart, subgroupSize);
   const firstLineOf = new Map<string, number>();
   const fieldColumn: Partial<Record<string, string>> = {
     timestamp: mapping.timestamp,
@@ -114,13 +118,16 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
       ? { values: parsed.map((row) => row.value as number) }
       : { count: head.count, size: head.size, units: head.units };
     const isoTime = new Date(head.timestamp).toISOString();
-    const checked = schema.safeParse({ timestamp: isoTime, ...recorded, tags: head.tags });
-    if (!checked.success) {
-      for (const issue of checked.error.issues) {
-        const field = String(issue.path[0] ?? "");
-        const what = variables && field === "values" ? `subgroup "${first.label ?? ""}" (${rows.length} rows): values ` : `${field} `;
-        problems.push({ line: first.line, column: fieldColumn[field] ?? mapping.subgroup, message: `${what}${issue.message}` });
-      }
+    const describe = (field: string, message: string) => {
+      const what = variables && field === "values" ? `subgroup "${first.label ?? ""}" (${rows.length} rows): values ` : `${field} `;
+      problems.push({ line: first.line, column: fieldColumn[field] ?? mapping.subgroup, message: `${what}${message}` });
+    };
+    for (const { path, message } of subgroupProblems(chart, subgroupSize, recorded)) describe(path, message);
+    // toISOString writes "YYYY-MM-DDTHH:mm:ss.sssZ" (24 characters), which ZTimestamp accepts, except for
+    // instants outside the years 0000-9999 (six-digit years): only those need its check.
+    if (isoTime.length !== 24) {
+      const time = ZTimestamp.safeParse(isoTime);
+      if (!time.success) for (const issue of time.error.issues) describe("timestamp", issue.message);
     }
     if (head.timestamp < previousTime) {
       problems.push({
