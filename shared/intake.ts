@@ -141,49 +141,40 @@ export interface TSubgroupProblem {
 
 const NO_SUBGROUP_PROBLEMS: readonly TSubgroupProblem[] = Object.freeze([]);
 
+/** Per chart, each measurement field and whether the chart needs it (true) or cannot use it (false), in message order. */
+type TFieldRules = readonly (readonly [TSubgroupProblem["path"], boolean])[];
+const VARIABLES_FIELDS: TFieldRules = [["values", true], ["count", false], ["size", false], ["units", false]];
+const DEFECTIVES_FIELDS: TFieldRules = [["values", false], ["count", true], ["size", true], ["units", false]];
+const DEFECTS_PER_UNIT_FIELDS: TFieldRules = [["values", false], ["count", true], ["units", true], ["size", false]];
+const DEFECTS_FIELDS: TFieldRules = [["values", false], ["count", true], ["size", false], ["units", false]];
+
 /**
  * The chart rules for one subgroup whose fields are already valid on their own (`ZSubgroupInput`): which
  * fields the chart needs and which it cannot use, the subgroup size, counts within sample sizes, the np
  * sample size. The one definition of these rules: `subgroupSchemaFor` applies it after zod's field checks,
  * and the CSV import, whose cells zod has already checked, calls it on each assembled subgroup directly.
+ * Written without closures or allocations when nothing is wrong: the import calls it a million times.
  */
 export function subgroupProblems(chartType: ChartType, subgroupSize: number, input: TSubgroupMeasurements): readonly TSubgroupProblem[] {
+  const variables = VARIABLES_CHART_TYPES.includes(chartType);
+  const fields = variables ? VARIABLES_FIELDS : chartType === "p" || chartType === "np" ? DEFECTIVES_FIELDS : chartType === "u" ? DEFECTS_PER_UNIT_FIELDS : DEFECTS_FIELDS;
   let problems: TSubgroupProblem[] | undefined;
-  const add = (path: TSubgroupProblem["path"], message: string) => (problems ??= []).push({ path, message });
-  const chart = `on a ${chartType} chart`;
-  const need = (field: TSubgroupProblem["path"], present: boolean) => {
-    if (!present) add(field, `is required ${chart}`);
-  };
-  const forbid = (field: TSubgroupProblem["path"], present: boolean) => {
-    if (present) add(field, `is not used ${chart}`);
-  };
-  if (VARIABLES_CHART_TYPES.includes(chartType)) {
-    need("values", input.values !== undefined);
-    forbid("count", input.count !== undefined);
-    forbid("size", input.size !== undefined);
-    forbid("units", input.units !== undefined);
-    if (input.values && input.values.length !== subgroupSize) {
-      add("values", `must hold exactly ${subgroupSize} value${subgroupSize === 1 ? "" : "s"} (the subgroup size of this characteristic)`);
+  for (const [field, needed] of fields) {
+    if (needed !== (input[field] !== undefined)) {
+      (problems ??= []).push({ path: field, message: `${needed ? "is required" : "is not used"} on a ${chartType} chart` });
     }
-    return problems ?? NO_SUBGROUP_PROBLEMS;
   }
-  forbid("values", input.values !== undefined);
-  need("count", input.count !== undefined);
-  if (chartType === "p" || chartType === "np") {
-    need("size", input.size !== undefined);
-    forbid("units", input.units !== undefined);
-    if (input.count !== undefined && input.size !== undefined && input.count > input.size) {
-      add("count", "must not exceed the number inspected (size)");
-    }
-    if (chartType === "np" && input.size !== undefined && input.size !== subgroupSize) {
-      add("size", `must equal the characteristic's sample size ${subgroupSize} on an np chart`);
-    }
-  } else if (chartType === "u") {
-    need("units", input.units !== undefined);
-    forbid("size", input.size !== undefined);
-  } else {
-    forbid("size", input.size !== undefined);
-    forbid("units", input.units !== undefined);
+  if (variables && input.values && input.values.length !== subgroupSize) {
+    (problems ??= []).push({
+      path: "values",
+      message: `must hold exactly ${subgroupSize} value${subgroupSize === 1 ? "" : "s"} (the subgroup size of this characteristic)`,
+    });
+  }
+  if (fields === DEFECTIVES_FIELDS && input.count !== undefined && input.size !== undefined && input.count > input.size) {
+    (problems ??= []).push({ path: "count", message: "must not exceed the number inspected (size)" });
+  }
+  if (chartType === "np" && input.size !== undefined && input.size !== subgroupSize) {
+    (problems ??= []).push({ path: "size", message: `must equal the characteristic's sample size ${subgroupSize} on an np chart` });
   }
   return problems ?? NO_SUBGROUP_PROBLEMS;
 }

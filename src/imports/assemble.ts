@@ -71,7 +71,11 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
   };
   let pending: TImportRow[] = [];
   let previousTime = -Infinity;
-  const occurrences = new Map<string, number>();
+  // Identical subgroups accepted earlier at the same time, by "<numbers>:<subgroup id>"; built only when a
+  // time repeats (from the previous subgroup's key), so a file of distinct times pays no map operations.
+  let occurrences: Map<string, number> | undefined;
+  let previousNumbers = "";
+  let previousLabel = "";
 
   function reject(rows: readonly TImportRow[], problems: readonly CsvProblem[]): void {
     const byLine = new Map<number, CsvProblem[]>();
@@ -87,6 +91,13 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
         ],
       })),
     );
+  }
+
+  /** A subgroup field's problem, reported on the subgroup's first line in the field's column. */
+  function subgroupProblem(rows: readonly TImportRow[], field: string, message: string): CsvProblem {
+    const first = rows[0] as TImportRow;
+    const what = variables && field === "values" ? `subgroup "${first.label ?? ""}" (${rows.length} rows): values ` : `${field} `;
+    return { line: first.line, column: fieldColumn[field] ?? mapping.subgroup, message: `${what}${message}` };
   }
 
   function finish(rows: TImportRow[]): void {
@@ -118,16 +129,12 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
       ? { values: parsed.map((row) => row.value as number) }
       : { count: head.count, size: head.size, units: head.units };
     const isoTime = new Date(head.timestamp).toISOString();
-    const describe = (field: string, message: string) => {
-      const what = variables && field === "values" ? `subgroup "${first.label ?? ""}" (${rows.length} rows): values ` : `${field} `;
-      problems.push({ line: first.line, column: fieldColumn[field] ?? mapping.subgroup, message: `${what}${message}` });
-    };
-    for (const { path, message } of subgroupProblems(chart, subgroupSize, recorded)) describe(path, message);
+    for (const { path, message } of subgroupProblems(chart, subgroupSize, recorded)) problems.push(subgroupProblem(rows, path, message));
     // toISOString writes "YYYY-MM-DDTHH:mm:ss.sssZ" (24 characters), which ZTimestamp accepts, except for
     // instants outside the years 0000-9999 (six-digit years): only those need its check.
     if (isoTime.length !== 24) {
       const time = ZTimestamp.safeParse(isoTime);
-      if (!time.success) for (const issue of time.error.issues) describe("timestamp", issue.message);
+      if (!time.success) for (const issue of time.error.issues) problems.push(subgroupProblem(rows, "timestamp", issue.message));
     }
     if (head.timestamp < previousTime) {
       problems.push({
@@ -138,14 +145,19 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     }
     if (problems.length > 0) return reject(rows, problems);
 
-    if (head.timestamp !== previousTime && occurrences.size > 0) occurrences.clear();
-    previousTime = head.timestamp;
     const numbers = variables ? (recorded.values ?? []).join(",") : `${recorded.count}/${recorded.size ?? ""}/${recorded.units ?? ""}`;
-    const content = `${head.timestamp}:${numbers}`;
-    const occurrenceKey = `${content}:${first.label ?? ""}`;
-    const occurrence = occurrences.get(occurrenceKey) ?? 0;
-    occurrences.set(occurrenceKey, occurrence + 1);
-    const sourceKey = `csv:${content}:${occurrence}:${first.label ?? ""}`;
+    const label = first.label ?? "";
+    let occurrence = 0;
+    if (head.timestamp === previousTime) {
+      occurrences ??= new Map([[`${previousNumbers}:${previousLabel}`, 1]]);
+      const key = `${numbers}:${label}`;
+      occurrence = occurrences.get(key) ?? 0;
+      occurrences.set(key, occurrence + 1);
+    } else occurrences = undefined;
+    previousTime = head.timestamp;
+    previousNumbers = numbers;
+    previousLabel = label;
+    const sourceKey = `csv:${head.timestamp}:${numbers}:${occurrence}:${label}`;
     output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, isoTime, recorded, tags: head.tags, sourceKey });
   }
 
