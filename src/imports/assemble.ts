@@ -104,16 +104,15 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     const first = rows[0];
     if (first === undefined) return;
     if (rows.some((row) => row.problems.length > 0)) return reject(rows, rows.flatMap((row) => row.problems));
-    const parsed = rows.length === 1 ? [first.parsed as TParsedRow] : rows.map((row) => row.parsed as TParsedRow);
-    const head = parsed[0] as TParsedRow;
+    const head = first.parsed as TParsedRow;
     const problems: CsvProblem[] = [];
     if (!variables && rows.length > 1) {
       for (const row of rows.slice(1)) {
         problems.push({ line: row.line, column: mapping.subgroup, message: `subgroup "${first.label ?? ""}" has ${rows.length} rows: a ${chart} chart takes one row per subgroup` });
       }
     }
-    for (let index = 1; index < parsed.length; index += 1) {
-      const row = parsed[index] as TParsedRow;
+    for (let index = 1; index < rows.length; index += 1) {
+      const row = rows[index]?.parsed as TParsedRow;
       for (const tag of new Set([...Object.keys(head.tags), ...Object.keys(row.tags)])) {
         if (head.tags[tag] !== row.tags[tag]) {
           const column = mapping.tags.find((entry) => entry.tag === tag)?.column;
@@ -126,7 +125,7 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
       }
     }
     const recorded: TRecorded = variables
-      ? { values: parsed.map((row) => row.value as number) }
+      ? { values: rows.length === 1 ? [head.value as number] : rows.map((row) => row.parsed?.value as number) }
       : { count: head.count, size: head.size, units: head.units };
     const isoTime = new Date(head.timestamp).toISOString();
     for (const { path, message } of subgroupProblems(chart, subgroupSize, recorded)) problems.push(subgroupProblem(rows, path, message));
