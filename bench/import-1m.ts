@@ -1,8 +1,8 @@
 /**
  * Speed and memory of the CSV import on 1,000,000 rows (issue 5): a seeded individuals series
  * (timestamp,value; one subgroup per row) is written to a temporary file, then
- * 1. the real import path (`importCsv`: file stream → papaparse → zod row checks → subgroup checks with the
- *    shared schema → source keys → prepared-statement writes in one transaction → batch re-evaluation)
+ * 1. the real import path (`importCsv`: file stream → papaparse → zod row checks → the shared chart rules per
+ *    subgroup → source keys → prepared-statement writes in one transaction → batch re-evaluation)
  *    runs into a fresh, migrated database, with the resident set size sampled every 20 ms;
  * 2. a bare better-sqlite3 insert of the same rows (the Subgroup and Measurement rows the import stored,
  *    read back from the first database beforehand) runs into a second fresh database, with the same
