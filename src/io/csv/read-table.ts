@@ -97,6 +97,11 @@ export function makeRow(cells: string[], header: string[], line: number, separat
         : "";
     problems.push({ line, message: `expected ${plural(header.length, "cell")} (${header.join(separator)}), found ${cells.length}${hint}` });
   }
-  const entries = header.map((name, position) => [name.toLowerCase(), cells[position] ?? ""] as const);
-  return { line, cells: Object.fromEntries(entries) };
+  // A plain loop: this runs once per row of a million-row import, where the intermediate arrays of
+  // map + Object.fromEntries showed in the profile.
+  const named: Record<string, string> = {};
+  for (let position = 0; position < header.length; position++) {
+    named[header[position]!.toLowerCase()] = cells[position] ?? "";
+  }
+  return { line, cells: named };
 }
