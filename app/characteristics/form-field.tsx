@@ -9,6 +9,21 @@ export function problemOf(issues: TFormIssues, path: string): string {
     .join("; ");
 }
 
+/** Problems that belong to no single field (path ""), shown above the form's fields. */
+export function FormProblems({ issues }: { issues: TFormIssues }) {
+  return (
+    <>
+      {issues
+        .filter((issue) => issue.path === "")
+        .map((issue, index) => (
+          <p key={index} className="form-error" role="alert">
+            {issue.message}
+          </p>
+        ))}
+    </>
+  );
+}
+
 export function FormField({
   name,
   label,

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import { CHART_TYPES, CHART_TYPE_LABELS, type ChartType } from "@/shared/constants";
-import { FormField } from "./form-field";
+import { FormField, FormProblems } from "./form-field";
 import { enteredOr, type TFormState } from "./setup-fields";
 
 export interface TSetupValues {
@@ -33,17 +33,12 @@ export function SetupForm({
 }) {
   const [state, action, pending] = useActionState(serverAction, { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
-  const general = issues.filter((issue) => issue.path === "");
   const optional = (value: number | null | undefined) => (value === null || value === undefined ? "" : String(value));
   const shown = (name: string, fallback: string) => enteredOr(state, name, fallback);
   return (
     <form action={action} className="settings-form" noValidate>
       {state.ok === true && <p role="status">{state.message}</p>}
-      {general.map((issue, index) => (
-        <p key={index} className="form-error" role="alert">
-          {issue.message}
-        </p>
-      ))}
+      <FormProblems issues={issues} />
       <FormField name="processId" label="Process" issues={issues}>
         {(attributes) => (
           <select {...attributes} defaultValue={shown("processId", optional(values.processId))}>

@@ -2,7 +2,7 @@
 
 import { useActionState } from "react";
 import type { ChartType } from "@/shared/constants";
-import { FormField } from "../../form-field";
+import { FormField, FormProblems } from "../../form-field";
 import { enteredOr, type TFormState } from "../../setup-fields";
 
 /** The recorded fields an attributes chart can have corrected, as the form names them. */
@@ -42,7 +42,6 @@ export function CorrectionForm({
 }) {
   const [state, action, pending] = useActionState(serverAction, { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
-  const general = issues.filter((issue) => issue.path === "");
   return (
     <>
       {state.ok === true && (
@@ -51,11 +50,7 @@ export function CorrectionForm({
         </div>
       )}
       <form action={action} className="entry-form" noValidate>
-        {general.map((issue, index) => (
-          <p key={index} className="form-error" role="alert">
-            {issue.message}
-          </p>
-        ))}
+        <FormProblems issues={issues} />
         <FormField
           name="sequence"
           label="Subgroup"

@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import { FormField } from "../../form-field";
+import { FormField, FormProblems } from "../../form-field";
 import { enteredOr, type TFormState } from "../../setup-fields";
 
 export function LimitRevisionForm({
@@ -13,15 +13,10 @@ export function LimitRevisionForm({
 }) {
   const [state, action, pending] = useActionState(serverAction, { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
-  const general = issues.filter((issue) => issue.path === "");
   return (
     <form action={action} className="settings-form" noValidate>
       {state.ok === true && <p role="status">{state.message}</p>}
-      {general.map((issue, index) => (
-        <p key={index} className="form-error" role="alert">
-          {issue.message}
-        </p>
-      ))}
+      <FormProblems issues={issues} />
       <FormField name="baselineStart" label="Baseline: first subgroup" hint="The new version applies from this subgroup on" issues={issues}>
         {(attributes) => <input {...attributes} inputMode="numeric" defaultValue={enteredOr(state, "baselineStart", "0")} />}
       </FormField>

@@ -2,14 +2,14 @@
 
 import { useActionState } from "react";
 import { CAUSE_CATEGORIES, EVENT_KINDS, EVENT_KIND_LABELS } from "@/shared/constants";
+import { FormProblems, problemOf as fieldProblem } from "../../../characteristics/form-field";
 import { enteredOr, type TFormState } from "../../../characteristics/setup-fields";
 import { addEvent } from "./actions";
 
 export function EventForm({ processId, defaultTime }: { processId: number; defaultTime: string }) {
   const [state, action, pending] = useActionState(addEvent.bind(null, processId), { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
-  const problemOf = (name: string) => issues.filter((issue) => issue.path === name).map((issue) => issue.message).join("; ");
-  const general = issues.filter((issue) => issue.path === "");
+  const problemOf = (name: string) => fieldProblem(issues, name);
   const described = (name: string) => (problemOf(name) !== "" ? { "aria-invalid": true, "aria-describedby": `${name}-error` } : {});
   const error = (name: string, label: string) =>
     problemOf(name) !== "" && (
@@ -20,11 +20,7 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
   return (
     <form action={action} className="settings-form" noValidate>
       {state.ok === true && <p role="status">{state.message}</p>}
-      {general.map((issue, index) => (
-        <p key={index} className="form-error" role="alert">
-          {issue.message}
-        </p>
-      ))}
+      <FormProblems issues={issues} />
       <div className="field">
         <label htmlFor="occurredAt">Time (UTC)</label>
         <input id="occurredAt" name="occurredAt" type="datetime-local" defaultValue={enteredOr(state, "occurredAt", defaultTime)} {...described("occurredAt")} />
