@@ -23,6 +23,7 @@ import type { TSubgroupInput } from "../shared/intake";
 import { createCharacteristic } from "../src/characteristics/setup";
 import { createPrismaClient } from "../src/db/connect";
 import { applyMigrations } from "../src/db/migrations/apply-migrations";
+import { storedTimeOf } from "../src/db/stored-time";
 import { reviseLimits } from "../src/limits";
 import { createRng } from "../src/spc/random";
 import { appendSubgroups, summarize } from "../src/subgroups";
@@ -102,11 +103,6 @@ function median(values: readonly number[]): number {
   return sorted.length % 2 === 1 ? sorted[middle]! : (sorted[middle - 1]! + sorted[middle]!) / 2;
 }
 
-/** DateTime as the Prisma SQLite adapter stores it: ISO 8601 text with an explicit +00:00. */
-function storedTime(iso: string): string {
-  return new Date(iso).toISOString().replace("Z", "+00:00");
-}
-
 /** Subgroups 0..count-1 with their measurements and cached summaries, in one transaction. */
 function writeHistory(characteristicId: number, count: number): void {
   const raw = new Database(databaseFile);
@@ -119,7 +115,7 @@ function writeHistory(characteristicId: number, count: number): void {
       for (let index = 0; index < count; index++) {
         const input = subgroup(index);
         const { mean, spread } = summarize("xbar-r", input);
-        const { lastInsertRowid } = insertSubgroup.run(characteristicId, index, storedTime(input.timestamp), mean, spread, storedTime(NOW.toISOString()));
+        const { lastInsertRowid } = insertSubgroup.run(characteristicId, index, storedTimeOf(Date.parse(input.timestamp)), mean, spread, storedTimeOf(NOW.getTime()));
         input.values!.forEach((value, position) => insertMeasurement.run(lastInsertRowid, position, value));
       }
     })();

@@ -19,6 +19,7 @@ import path from "node:path";
 import Database from "better-sqlite3";
 import { loadChartView } from "@/src/chart-data/load";
 import { applyMigrations } from "@/src/db/migrations/apply-migrations";
+import { storedTimeOf } from "@/src/db/stored-time";
 import { estimateParameters, evaluateChart } from "@/src/spc/charts";
 import { individualsData } from "@/src/spc/data";
 import { createRng } from "@/src/spc/random";
@@ -43,11 +44,6 @@ function median(values: readonly number[]): number {
   return sorted[Math.floor(sorted.length / 2)]!;
 }
 
-/** Prisma's way of storing a DateTime in SQLite. */
-function storedTime(milliseconds: number): string {
-  return new Date(milliseconds).toISOString().replace("Z", "+00:00");
-}
-
 async function buildDatabase(databaseFile: string): Promise<{ characteristicId: number; signals: number }> {
   await applyMigrations({ databaseFile });
   const database = new Database(databaseFile);
@@ -58,7 +54,7 @@ async function buildDatabase(databaseFile: string): Promise<{ characteristicId: 
 
   let signalCount = 0;
   database.transaction(() => {
-    const now = storedTime(START);
+    const now = storedTimeOf(START);
     const siteId = database.prepare('INSERT INTO "Site" ("name", "createdAt") VALUES (?, ?)').run("Bench site", now).lastInsertRowid;
     const areaId = database.prepare('INSERT INTO "Area" ("siteId", "name") VALUES (?, ?)').run(siteId, "Bench area").lastInsertRowid;
     const processId = database
@@ -73,7 +69,7 @@ async function buildDatabase(databaseFile: string): Promise<{ characteristicId: 
     const subgroup = database.prepare(
       'INSERT INTO "Subgroup" ("characteristicId", "sequence", "timestamp", "mean", "createdAt") VALUES (?, ?, ?, ?, ?)',
     );
-    for (let index = 0; index < POINTS; index++) subgroup.run(characteristicId, index, storedTime(START + index * MINUTE), values[index]!, now);
+    for (let index = 0; index < POINTS; index++) subgroup.run(characteristicId, index, storedTimeOf(START + index * MINUTE), values[index]!, now);
 
     const limitSet = database.prepare(
       'INSERT INTO "LimitSet" ("characteristicId", "version", "center", "sigma", "subgroupSize", "baselineStart", "baselineEnd", ' +

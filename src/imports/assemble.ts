@@ -39,9 +39,8 @@ export interface TImportRow {
 export interface TAssembledSubgroup {
   readonly firstLine: number;
   readonly rows: readonly TImportRow[];
+  /** Milliseconds since the epoch. */
   readonly timestamp: number;
-  /** The same time as ISO 8601 text (UTC, "Z"). */
-  readonly isoTime: string;
   readonly recorded: TRecorded;
   readonly tags: Readonly<Record<string, string>>;
   readonly sourceKey: string;
@@ -58,6 +57,10 @@ export interface TAssemblerOutput {
   accepted(subgroup: TAssembledSubgroup): void;
   rejected(rows: readonly TRejectedRow[]): void;
 }
+
+/** The first and last milliseconds of the years 0000-9999. */
+const FIRST_INSTANT = Date.parse("0000-01-01T00:00:00.000Z");
+const LAST_INSTANT = Date.parse("9999-12-31T23:59:59.999Z");
 
 export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgroupSize: number, output: TAssemblerOutput) {
   const variables = VARIABLES_CHART_TYPES.includes(chart);
@@ -127,12 +130,11 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     const recorded: TRecorded = variables
       ? { values: rows.length === 1 ? [head.value as number] : rows.map((row) => row.parsed?.value as number) }
       : { count: head.count, size: head.size, units: head.units };
-    const isoTime = new Date(head.timestamp).toISOString();
     for (const { path, message } of subgroupProblems(chart, subgroupSize, recorded)) problems.push(subgroupProblem(rows, path, message));
-    // toISOString writes "YYYY-MM-DDTHH:mm:ss.sssZ" (24 characters), which ZTimestamp accepts, except for
-    // instants outside the years 0000-9999 (six-digit years): only those need its check.
-    if (isoTime.length !== 24) {
-      const time = ZTimestamp.safeParse(isoTime);
+    // ZTimestamp accepts every instant of the years 0000-9999 (as toISOString writes them); only a time
+    // outside them (a year-0000 reading at an offset east of UTC) needs its check.
+    if (head.timestamp < FIRST_INSTANT || head.timestamp > LAST_INSTANT) {
+      const time = ZTimestamp.safeParse(new Date(head.timestamp).toISOString());
       if (!time.success) for (const issue of time.error.issues) problems.push(subgroupProblem(rows, "timestamp", issue.message));
     }
     if (head.timestamp < previousTime) {
@@ -157,7 +159,7 @@ export function createAssembler(mapping: TColumnMapping, chart: ChartType, subgr
     previousNumbers = numbers;
     previousLabel = label;
     const sourceKey = `csv:${head.timestamp}:${numbers}:${occurrence}:${label}`;
-    output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, isoTime, recorded, tags: head.tags, sourceKey });
+    output.accepted({ firstLine: first.line, rows, timestamp: head.timestamp, recorded, tags: head.tags, sourceKey });
   }
 
   return {
