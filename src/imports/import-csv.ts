@@ -11,6 +11,7 @@
 import type Database from "better-sqlite3";
 import type { PrismaClient } from "@/src/db/connect";
 import { getCharacteristic } from "@/src/characteristics/setup";
+import { storedTime } from "@/src/db/stored-time";
 import { AppError, parseInput } from "@/src/errors";
 import type { CsvProblem } from "@/src/io/csv/errors";
 import type { CsvSeparator } from "@/src/io/csv/read-table";
@@ -20,7 +21,7 @@ import { ZImportOptions, type TImportMode, type TImportOptionsInput } from "./op
 import { rejectedRowsCsv, writeRejectedRows } from "./rejected-rows";
 import { checkMapping, createRowReader, type TParsedRow } from "./rows";
 import { streamCsvRows } from "./stream-table";
-import { completeBatch, createBatch, createSubgroupWriter, storedTime } from "./write";
+import { completeBatch, createBatch, createSubgroupWriter } from "./write";
 
 /** Problems listed in an answer; the total is always given. */
 export const MAX_LISTED_PROBLEMS = 1000;
@@ -99,7 +100,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
 
   try {
     const batchId = createBatch(database, characteristic.id, options.fileName, mode, createdAt);
-    const writer = createSubgroupWriter(database, characteristic.id, chartType, mapping.timestamp);
+    const writer = createSubgroupWriter(database, characteristic.id, chartType, mapping.timestamp, batchId, createdAt);
     const rejectRows = (rows: readonly TRejectedRow[]) => {
       rowsRejected += rows.length;
       report(rows.flatMap((row) => row.problems));
@@ -107,7 +108,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
     };
     const assembler = createAssembler(mapping, chartType, subgroupSize, {
       accepted(subgroup) {
-        const outcome = writer.write(subgroup, batchId, createdAt);
+        const outcome = writer.write(subgroup);
         if (outcome.kind === "present") subgroupsAlreadyPresent += 1;
         else if (outcome.kind === "added") {
           subgroupsAdded += 1;
@@ -145,6 +146,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
       onProgress: request.onProgress,
     });
     assembler.end();
+    writer.flush();
     const { rowsRead } = summary;
     if (summary.problems.length > 0) {
       fileProblem = true;

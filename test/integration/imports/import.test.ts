@@ -5,6 +5,7 @@ import { readFile } from "node:fs/promises";
 import { describe, expect, test } from "vitest";
 import { reviseLimits } from "@/src/limits/revise";
 import { rejectedRowsPath } from "@/src/imports/rejected-rows";
+import { ROWS_PER_STATEMENT } from "@/src/imports/write";
 import { DEFAULT_DEMO_SEED } from "@/src/demo/scenario";
 import { CAP_HEIGHT_MAPPING, capHeightCsv } from "./demo-continuation";
 import { createTestCharacteristic, NOW, runImport, tableCounts, openImportTestDatabase } from "./harness";
@@ -46,6 +47,40 @@ describe("importing a well-formed file", () => {
     const batch = await harness.prisma.importBatch.findUniqueOrThrow({ where: { id: result.batchId ?? -1 } });
     expect(batch).toMatchObject({ characteristicId: id, fileName: "readings.csv", rowsRead: 6, subgroupsAdded: 2, subgroupsAlreadyPresent: 0, rowsRejected: 0, mode: "all-or-nothing" });
     expect(batch.fileHash).toMatch(/^[0-9a-f]{64}$/);
+  });
+
+  test("subgroups written many to a statement keep their values, tags and order, and an overlapping file adds only its new part", async () => {
+    // 3 full statements and 5 more (ROWS_PER_STATEMENT subgroups per statement), 4 values and a tag each.
+    const count = 3 * ROWS_PER_STATEMENT + 5;
+    const subgroupRows = (first: number, last: number) =>
+      Array.from({ length: last - first }, (_, offset) => {
+        const index = first + offset;
+        const time = new Date(Date.UTC(2026, 2, 1, 6) + index * 3_600_000).toISOString();
+        return [0, 1, 2, 3].map((position) => `${time},S${index},${(10 + index / 1000 + position / 100).toFixed(3)},${index % 4}`);
+      }).flat();
+    const mapping = { ...XBAR_MAPPING };
+    const id = await createTestCharacteristic(harness.prisma, "xbar-r", 4);
+    const first = await runImport(harness, id, ["time,sample,diameter,cavity", ...subgroupRows(0, count)].join("\n"), { mapping });
+    expect(first).toMatchObject({ status: "imported", subgroupsAdded: count, addedSequences: [0, count - 1] });
+    const stored = await harness.sqlite
+      .prepare<[number], { sequence: number; values: string; tag: string; mean: number }>(
+        `SELECT s."sequence", group_concat(m."value", ' ' ORDER BY m."position") AS "values", t."value" AS "tag", s."mean"
+         FROM "Subgroup" s JOIN "Measurement" m ON m."subgroupId" = s."id" JOIN "SubgroupTag" t ON t."subgroupId" = s."id"
+         WHERE s."characteristicId" = ? GROUP BY s."id" ORDER BY s."sequence"`,
+      )
+      .all(id);
+    expect(stored.map((row) => row.sequence)).toEqual(Array.from({ length: count }, (_, index) => index));
+    stored.forEach((row, index) => {
+      const values = [0, 1, 2, 3].map((position) => Number((10 + index / 1000 + position / 100).toFixed(3)));
+      expect(row.values.split(" ").map(Number)).toEqual(values);
+      expect(row.tag).toBe(String(index % 4));
+      expect(row.mean).toBeCloseTo(values.reduce((sum, value) => sum + value, 0) / 4, 12);
+    });
+
+    // The last 70 subgroups again, then 100 new ones: the stored part is recognised row by row.
+    const overlap = await runImport(harness, id, ["time,sample,diameter,cavity", ...subgroupRows(count - 70, count + 100)].join("\n"), { mapping });
+    expect(overlap).toMatchObject({ status: "imported", subgroupsAlreadyPresent: 70, subgroupsAdded: 100, addedSequences: [count, count + 99] });
+    expect(await harness.prisma.measurement.count({ where: { subgroup: { characteristicId: id } } })).toBe(4 * (count + 100));
   });
 
   test("importing the same file again adds nothing and counts every subgroup as already present", async () => {
