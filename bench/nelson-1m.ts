@@ -18,7 +18,7 @@
  *   before timing; nothing is cached between repetitions. The bare side is the plainest loop over the
  *   same array.
  *
- * - How the code is loaded: run under tsx, this file bundles itself with esbuild (the compiler tsx uses)
+ * - How the code is loaded: run under tsx, this file bundles itself with esbuild (./support/bundled.ts)
  *   and measures in a child `node` on the bundle, without loader hooks or source maps. Under tsx the
  *   bare pass measured twice as slow as in plain node (about 1.8 ms against 0.85 ms for the same loop,
  *   for a reason not found), which would flatter the ratio; the bundle gives the fastest bare pass, so
@@ -28,34 +28,14 @@
  *
  * Run: npx tsx bench/nelson-1m.ts
  */
-import { spawnSync } from "node:child_process";
-import { rmSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
-import { fileURLToPath } from "node:url";
 import { NELSON_RULES } from "../shared/constants";
 import { estimateParameters, evaluateChart } from "../src/spc/charts";
 import { individualsData } from "../src/spc/data";
 import { createRng } from "../src/spc/random";
 import { evaluateRules } from "../src/spc/rules";
+import { loadedAs, runBundled } from "./support/bundled";
 
-const BUNDLED = "NELSON_BENCH_BUNDLED";
-if (process.env[BUNDLED] === undefined) {
-  const outfile = path.join(tmpdir(), `nelson-1m-${process.pid}.mjs`);
-  const { buildSync } = await import("esbuild");
-  buildSync({
-    entryPoints: [fileURLToPath(import.meta.url)],
-    bundle: true,
-    platform: "node",
-    format: "esm",
-    outfile,
-    external: ["esbuild"],
-    logLevel: "warning",
-  });
-  const child = spawnSync(process.execPath, [outfile], { stdio: "inherit", env: { ...process.env, [BUNDLED]: "1" } });
-  rmSync(outfile);
-  process.exit(child.status ?? 1);
-}
+await runBundled(import.meta.url);
 
 const POINTS = 1_000_000;
 const WARM_UP = 10;
@@ -128,7 +108,7 @@ const format = ({ min, median }: { min: Sample; median: Sample }) =>
   `min ${min.cpu.toFixed(3)} ms CPU, ${min.wall.toFixed(3)} ms wall; median ${median.cpu.toFixed(3)} ms CPU, ${median.wall.toFixed(3)} ms wall`;
 console.log(`points: ${POINTS.toLocaleString("en")} individuals, seeded in-control normal data (checksum ${checksum.toFixed(3)})`);
 console.log(`series: individuals chart x, limits estimated on the data, uniform limits flag: ${series.uniformLimits === true}`);
-console.log(`loaded as: an esbuild bundle of this file run by plain node ${process.version}`);
+console.log(`loaded as: ${loadedAs()}`);
 console.log(`repetitions: ${REPETITIONS}, alternating, after ${WARM_UP} warm-up runs of each`);
 console.log(`bare sum pass:          ${format(bare)}`);
 console.log(`nelson-1..8 evaluation: ${format(rules)}; ${signalCount} signals`);
