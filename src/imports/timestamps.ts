@@ -68,7 +68,14 @@ function toMilliseconds(text: string, parts: Parts, zone: string): TTimestampRes
   const offset = offsetMinutes(zone);
   if (Math.abs(offset) > 14 * 60) return { ok: false, message: `"${text}" has the offset ${zone}, outside -12:00 to +14:00` };
   const fraction = fractionText === undefined ? 0 : Number(`0.${fractionText}`) * 1000;
-  return { ok: true, milliseconds: Date.UTC(year, month - 1, day, hour, minute, second) + Math.round(fraction) - offset * 60_000 };
+  return { ok: true, milliseconds: utcMilliseconds(year, month, day) + ((hour * 60 + minute) * 60 + second) * 1000 + Math.round(fraction) - offset * 60_000 };
+}
+
+/** Milliseconds at 00:00 UTC of a calendar day. `Date.UTC` would read years 0-99 as 1900-1999. */
+function utcMilliseconds(year: number, month: number, day: number): number {
+  const date = new Date(0);
+  date.setUTCFullYear(year, month - 1, day);
+  return date.getTime();
 }
 
 function noZone(text: string): TTimestampResult {
@@ -108,4 +115,61 @@ export function readTimestamp(text: string, reading: TTimestampReading): TTimest
   if (text === "") return { ok: false, message: "is empty: a timestamp is required" };
   if (DATE_ONLY.test(text)) return { ok: false, message: `"${text}" is a date without a time of day: write the time too, e.g. ${FORMS}` };
   return { ok: false, message: `"${text}" is not a timestamp in a known form: write e.g. ${FORMS}` };
+}
+
+/** The number written by `count` ASCII digits from `start`, or -1 if any of them is not a digit. */
+function digitsAt(text: string, start: number, count: number): number {
+  let value = 0;
+  for (let index = start; index < start + count; index += 1) {
+    const digit = text.charCodeAt(index) - 48;
+    if (digit < 0 || digit > 9) return -1;
+    value = value * 10 + digit;
+  }
+  return value;
+}
+
+const HYPHEN = 45;
+const COLON = 58;
+const DOT = 46;
+const LETTER_T = 84;
+const LETTER_Z = 90;
+
+/**
+ * `readTimestamp` for one file, with a fast path for the form most files carry: UTC as `toISOString`
+ * writes it, "2026-03-01T06:00:00Z" or "2026-03-01T06:00:00.250Z". The date part is checked once per day
+ * (rows in time order mostly share the previous row's day) and the time of day is read from character
+ * codes, instead of a regular expression with eight groups per cell. Any text the fast path does not accept
+ * whole, valid or not, goes to `readTimestamp`, which gives the same result for what the fast path accepts
+ * (property test in test/unit/imports/timestamps.test.ts) and every message.
+ */
+export function createTimestampReader(reading: TTimestampReading): (text: string) => TTimestampResult {
+  let datePart = "";
+  let dayStart = 0;
+
+  function fast(text: string): number | undefined {
+    const length = text.length;
+    if ((length !== 20 && length !== 24) || text.charCodeAt(length - 1) !== LETTER_Z) return undefined;
+    if (datePart === "" || !text.startsWith(datePart)) {
+      if (text.charCodeAt(4) !== HYPHEN || text.charCodeAt(7) !== HYPHEN || text.charCodeAt(10) !== LETTER_T) return undefined;
+      const year = digitsAt(text, 0, 4);
+      const month = digitsAt(text, 5, 2);
+      const day = digitsAt(text, 8, 2);
+      if (year < 0 || month < 1 || month > 12 || day < 1) return undefined;
+      if (day > (month === 2 && isLeapYear(year) ? 29 : (DAYS_IN_MONTH[month - 1] as number))) return undefined;
+      datePart = text.slice(0, 11);
+      dayStart = utcMilliseconds(year, month, day);
+    }
+    if (text.charCodeAt(13) !== COLON || text.charCodeAt(16) !== COLON) return undefined;
+    const hour = digitsAt(text, 11, 2);
+    const minute = digitsAt(text, 14, 2);
+    const second = digitsAt(text, 17, 2);
+    const millisecond = length === 24 && text.charCodeAt(19) === DOT ? digitsAt(text, 20, 3) : length === 20 ? 0 : -1;
+    if (hour < 0 || hour > 23 || minute < 0 || minute > 59 || second < 0 || second > 59 || millisecond < 0) return undefined;
+    return dayStart + ((hour * 60 + minute) * 60 + second) * 1000 + millisecond;
+  }
+
+  return (text) => {
+    const milliseconds = fast(text);
+    return milliseconds === undefined ? readTimestamp(text, reading) : { ok: true, milliseconds };
+  };
 }
