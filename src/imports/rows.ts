@@ -12,7 +12,7 @@ import type { CsvProblem } from "@/src/io/csv/errors";
 import type { CsvRow } from "@/src/io/csv/read-table";
 import { countCell, numberCell, positiveCell } from "@/src/io/csv/row-schemas";
 import { COLUMN_ROLE_WORDS, COLUMN_ROLES, measurementRolesFor, type TColumnMapping, type TColumnRole } from "./options";
-import { readTimestamp, type TTimestampReading } from "./timestamps";
+import { createTimestampReader, type TTimestampReading } from "./timestamps";
 
 export interface TParsedRow {
   readonly line: number;
@@ -68,60 +68,59 @@ export function checkMapping(
 
 const NO_TAGS: Readonly<Record<string, string>> = Object.freeze({});
 
-/** The row reader for one import: mapping, chart, decimal mark and timestamp reading fixed. */
+/**
+ * The row reader for one import: mapping, chart, decimal mark and timestamp reading fixed. Each mapped cell
+ * is checked with its own zod schema; a million-row file pays for nothing it does not map (an object schema
+ * over the row would build an input and an output object per row and check every absent optional field).
+ */
 export function createRowReader(mapping: TColumnMapping, decimalComma: boolean, reading: TTimestampReading): (row: CsvRow) => TRowResult {
-  const timestampCell = z.string().transform((text, context) => {
-    const result = readTimestamp(text, reading);
-    if (result.ok) return result.milliseconds;
-    context.addIssue(result.message);
-    return z.NEVER;
-  });
+  const readTimestamp = createTimestampReader(reading);
+  const cellSchemas: Record<TColumnRole, z.ZodType<unknown, string>> = {
+    timestamp: z.string().transform((text, context) => {
+      const result = readTimestamp(text);
+      if (result.ok) return result.milliseconds;
+      context.addIssue(result.message);
+      return z.NEVER;
+    }),
+    subgroup: z.string().min(1, { error: "is empty: a subgroup id is required" }),
+    value: numberCell(decimalComma),
+    count: countCell(decimalComma),
+    size: positiveCell(decimalComma, true),
+    units: positiveCell(decimalComma, false),
+  };
   const tagCell = z.string().max(INTAKE_LIMITS.tagValueLength, { error: `is longer than ${INTAKE_LIMITS.tagValueLength} characters` });
-  const fullSchema = z.object({
-    timestamp: timestampCell,
-    subgroup: z.string().min(1, { error: "is empty: a subgroup id is required" }).optional(),
-    value: numberCell(decimalComma).optional(),
-    count: countCell(decimalComma).optional(),
-    size: positiveCell(decimalComma, true).optional(),
-    units: positiveCell(decimalComma, false).optional(),
-    tags: z.record(z.string(), tagCell).optional(),
+  const fields = COLUMN_ROLES.flatMap((role) => {
+    const column = mapping[role];
+    return column === undefined ? [] : [{ role, key: column.toLowerCase(), column, schema: cellSchemas[role] }];
   });
-  const roles = COLUMN_ROLES.flatMap((role) => (mapping[role] === undefined ? [] : [[role, mapping[role].toLowerCase(), mapping[role]] as const]));
-  const tagColumns = mapping.tags.map(({ column, tag }) => [tag, column.toLowerCase(), column] as const);
-  // Only the mapped fields are checked (a million rows pay for every absent optional field otherwise); tags
-  // are left out of the input when no tag columns are mapped, most large files.
-  const picked: Partial<Record<TColumnRole | "tags", true>> = Object.fromEntries([
-    ...roles.map(([role]) => [role, true] as const),
-    ...(tagColumns.length > 0 ? [["tags", true] as const] : []),
-  ]);
-  const schema = fullSchema.pick(picked) as unknown as typeof fullSchema;
-  const roleColumn = new Map<unknown, string>(roles.map(([role, , column]) => [role, column]));
-  const tagColumn = new Map<unknown, string>(tagColumns.map(([tag, , column]) => [tag, column]));
-  const columnOf = (path: readonly PropertyKey[]) => (path[0] === "tags" ? tagColumn.get(path[1]) : roleColumn.get(path[0]));
+  const tagColumns = mapping.tags.map(({ column, tag }) => ({ tag, key: column.toLowerCase(), column }));
 
   return (row) => {
-    const input: Record<string, unknown> = {};
-    for (const [role, key] of roles) input[role] = row.cells[key] ?? "";
+    const fieldValues: Record<string, unknown> = { line: row.line, tags: NO_TAGS };
+    let problems: CsvProblem[] | undefined;
+    for (const { role, key, column, schema } of fields) {
+      const result = schema.safeParse(row.cells[key] ?? "");
+      if (result.success) fieldValues[role] = result.data;
+      else problems = withIssues(problems, result.error.issues, row.line, column);
+    }
     if (tagColumns.length > 0) {
       const tags: Record<string, string> = {};
-      for (const [tag, key] of tagColumns) tags[tag] = row.cells[key] ?? "";
-      input.tags = tags;
+      for (const { tag, key, column } of tagColumns) {
+        const text = row.cells[key] ?? "";
+        const result = tagCell.safeParse(text);
+        if (!result.success) problems = withIssues(problems, result.error.issues, row.line, column);
+        else if (text !== "") tags[tag] = text;
+      }
+      fieldValues.tags = tags;
     }
-    const parsed = schema.safeParse(input);
-    if (!parsed.success) {
-      return {
-        ok: false,
-        problems: parsed.error.issues.map((issue) => ({
-          line: row.line,
-          column: columnOf(issue.path),
-          message: issue.message,
-        })),
-      };
-    }
-    // zod's output is a fresh object owned here: completing it in place saves two objects per row.
-    const fields = parsed.data as { -readonly [Key in keyof TParsedRow]: TParsedRow[Key] };
-    fields.line = row.line;
-    fields.tags = fields.tags === undefined ? NO_TAGS : Object.fromEntries(Object.entries(fields.tags).filter(([, value]) => value !== ""));
-    return { ok: true, row: fields };
+    if (problems !== undefined) return { ok: false, problems };
+    return { ok: true, row: fieldValues as unknown as TParsedRow };
   };
+}
+
+/** `problems` (created on the first) with a cell's zod issues added, each naming the line and column. */
+function withIssues(problems: CsvProblem[] | undefined, issues: readonly z.core.$ZodIssue[], line: number, column: string): CsvProblem[] {
+  const found = problems ?? [];
+  for (const issue of issues) found.push({ line, column, message: issue.message });
+  return found;
 }
