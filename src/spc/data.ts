@@ -18,23 +18,24 @@ function assertFinite(value: number, description: string, index: number): void {
   }
 }
 
+/** Throws SpcInputError unless the subgroup at `index` holds at least one value, all finite. */
+export function assertSubgroupValues(subgroup: readonly number[], index: number): void {
+  if (subgroup.length === 0) throw new SpcInputError(`subgroup ${index} is empty`, index);
+  subgroup.forEach((value, position) => assertFinite(value, `subgroup ${index}, value ${position}`, index));
+}
+
 /** Subgroups of measured values, in time order. */
 export function variablesData(subgroups: readonly (readonly number[])[]): VariablesData {
   if (subgroups.length === 0) throw new SpcInputError("no subgroups were given");
   const offsets = new Uint32Array(subgroups.length + 1);
   let total = 0;
   subgroups.forEach((subgroup, index) => {
-    if (subgroup.length === 0) throw new SpcInputError(`subgroup ${index} is empty`, index);
+    assertSubgroupValues(subgroup, index);
     total += subgroup.length;
     offsets[index + 1] = total;
   });
   const values = new Float64Array(total);
-  subgroups.forEach((subgroup, index) => {
-    subgroup.forEach((value, position) => {
-      assertFinite(value, `subgroup ${index}, value ${position}`, index);
-      values[offsets[index]! + position] = value;
-    });
-  });
+  subgroups.forEach((subgroup, index) => values.set(subgroup, offsets[index]!));
   return { kind: "variables", values, offsets };
 }
 
@@ -104,18 +105,42 @@ export function subgroupSizes(data: VariablesData): Uint32Array {
   return sizes;
 }
 
+/** Mean of values[start..end): Σx / n, summed in order. */
+export function meanOf(values: ArrayLike<number>, start: number, end: number): number {
+  let sum = 0;
+  for (let position = start; position < end; position++) sum += values[position]!;
+  return sum / (end - start);
+}
+
+/** Range (max − min) of values[start..end). */
+export function rangeOf(values: ArrayLike<number>, start: number, end: number): number {
+  let low = values[start]!;
+  let high = low;
+  for (let position = start + 1; position < end; position++) {
+    const value = values[position]!;
+    if (value < low) low = value;
+    else if (value > high) high = value;
+  }
+  return high - low;
+}
+
+/** Sample standard deviation (divisor n − 1, two-pass about `mean`) of values[start..end); 0 for one value. */
+export function standardDeviationOf(values: ArrayLike<number>, start: number, end: number, mean: number): number {
+  if (end - start < 2) return 0;
+  let sumOfSquares = 0;
+  for (let position = start; position < end; position++) {
+    const deviation = values[position]! - mean;
+    sumOfSquares += deviation * deviation;
+  }
+  return Math.sqrt(sumOfSquares / (end - start - 1));
+}
+
 /** Mean of each subgroup. */
 export function subgroupMeans(data: VariablesData): Float64Array {
   const { values, offsets } = data;
   const count = offsets.length - 1;
   const means = new Float64Array(count);
-  for (let index = 0; index < count; index++) {
-    const start = offsets[index]!;
-    const end = offsets[index + 1]!;
-    let sum = 0;
-    for (let position = start; position < end; position++) sum += values[position]!;
-    means[index] = sum / (end - start);
-  }
+  for (let index = 0; index < count; index++) means[index] = meanOf(values, offsets[index]!, offsets[index + 1]!);
   return means;
 }
 
@@ -124,18 +149,7 @@ export function subgroupRanges(data: VariablesData): Float64Array {
   const { values, offsets } = data;
   const count = offsets.length - 1;
   const ranges = new Float64Array(count);
-  for (let index = 0; index < count; index++) {
-    const start = offsets[index]!;
-    const end = offsets[index + 1]!;
-    let low = values[start]!;
-    let high = low;
-    for (let position = start + 1; position < end; position++) {
-      const value = values[position]!;
-      if (value < low) low = value;
-      else if (value > high) high = value;
-    }
-    ranges[index] = high - low;
-  }
+  for (let index = 0; index < count; index++) ranges[index] = rangeOf(values, offsets[index]!, offsets[index + 1]!);
   return ranges;
 }
 
@@ -145,16 +159,7 @@ export function subgroupStandardDeviations(data: VariablesData, means = subgroup
   const count = offsets.length - 1;
   const deviations = new Float64Array(count);
   for (let index = 0; index < count; index++) {
-    const start = offsets[index]!;
-    const end = offsets[index + 1]!;
-    if (end - start < 2) continue;
-    const mean = means[index]!;
-    let sumOfSquares = 0;
-    for (let position = start; position < end; position++) {
-      const deviation = values[position]! - mean;
-      sumOfSquares += deviation * deviation;
-    }
-    deviations[index] = Math.sqrt(sumOfSquares / (end - start - 1));
+    deviations[index] = standardDeviationOf(values, offsets[index]!, offsets[index + 1]!, means[index]!);
   }
   return deviations;
 }
