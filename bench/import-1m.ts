@@ -108,47 +108,51 @@ const SUBGROUP_COLUMNS = ["characteristicId", "sequence", "timestamp", "count", 
 const MEASUREMENT_COLUMNS = ["subgroupId", "position", "value"] as const;
 type TStoredRow = [number, number, string, null, null, string, number, number, null, string];
 
-/** The rows the first import stored: Subgroup columns in insert order, and each subgroup's one value. */
-function storedRows(databaseFile: string): { subgroups: TStoredRow[]; values: number[]; batch: unknown[] } {
+/** The rows the first import stored: ids, Subgroup columns in insert order, and each subgroup's one value. */
+function storedRows(databaseFile: string): { ids: number[]; subgroups: TStoredRow[]; values: number[]; batch: unknown[] } {
   const sqlite = openImportDatabase(databaseFile);
+  const ids = sqlite.prepare<[], number>('SELECT "id" FROM "Subgroup" ORDER BY "sequence"').pluck().all();
   const subgroups = sqlite
     .prepare<[], TStoredRow>(`SELECT ${SUBGROUP_COLUMNS.map((column) => `"${column}"`).join(", ")} FROM "Subgroup" ORDER BY "sequence"`)
     .raw()
     .all();
-  const values = sqlite.prepare<[], number>('SELECT "value" FROM "Measurement" ORDER BY "subgroupId"').pluck().all();
+  const values = sqlite.prepare<[], number>('SELECT m."value" FROM "Subgroup" s JOIN "Measurement" m ON m."subgroupId" = s."id" ORDER BY s."sequence"').pluck().all();
   const batch = sqlite.prepare('SELECT * FROM "ImportBatch"').raw().get() as unknown[];
   sqlite.close();
-  return { subgroups, values, batch };
+  return { ids, subgroups, values, batch };
 }
 
 /**
  * Inserts the stored rows into a copy of the template and returns its time. With one row per statement
- * (the bare insert of the issue) each measurement takes its subgroup's `lastInsertRowid`; with many, the
- * subgroups' ids come back with their sequences, as in the import. The batch row the subgroups point to is
- * written first, untimed; what was stored is compared with what was read, untimed.
+ * (the bare insert of the issue) SQLite chooses each id and each measurement takes its subgroup's
+ * `lastInsertRowid`; with many, the ids are given, as the import gives them. The batch row the subgroups
+ * point to is written first, untimed; what was stored is compared with what was read, untimed.
  */
 async function bareInsert(template: string, firstImport: string, rowsPerStatement: number): Promise<Sample> {
-  const { subgroups, values, batch } = storedRows(firstImport);
+  const { ids, subgroups, values, batch } = storedRows(firstImport);
   const sqlite = openImportDatabase(copyOf(template));
   sqlite.prepare(`INSERT INTO "ImportBatch" VALUES (${batch.map(() => "?").join(", ")})`).run(batch);
-  const insertSubgroups = prepareInsert(sqlite, "Subgroup", SUBGROUP_COLUMNS, rowsPerStatement, rowsPerStatement === 1 ? "" : ' RETURNING "id", "sequence"');
-  const insertMeasurements = prepareInsert(sqlite, "Measurement", MEASUREMENT_COLUMNS, rowsPerStatement);
   const insertOne = () => {
+    const insertSubgroup = prepareInsert(sqlite, "Subgroup", SUBGROUP_COLUMNS, 1);
+    const insertMeasurement = prepareInsert(sqlite, "Measurement", MEASUREMENT_COLUMNS, 1);
     for (let index = 0; index < subgroups.length; index += 1) {
-      const { lastInsertRowid } = insertSubgroups.run(subgroups[index]);
-      insertMeasurements.run(lastInsertRowid, 0, values[index]);
+      const { lastInsertRowid } = insertSubgroup.run(subgroups[index]);
+      insertMeasurement.run(lastInsertRowid, 0, values[index]);
     }
   };
   const insertMany = () => {
+    const insertSubgroups = prepareInsert(sqlite, "Subgroup", ["id", ...SUBGROUP_COLUMNS], rowsPerStatement);
+    const insertMeasurements = prepareInsert(sqlite, "Measurement", MEASUREMENT_COLUMNS, rowsPerStatement);
     const subgroupValues: unknown[] = [];
-    const measurementValues: unknown[] = new Array(3 * rowsPerStatement).fill(0);
+    const measurementValues: unknown[] = [];
     for (let first = 0; first < subgroups.length; first += rowsPerStatement) {
       subgroupValues.length = 0;
-      for (let index = first; index < first + rowsPerStatement; index += 1) subgroupValues.push(...(subgroups[index] as TStoredRow));
-      for (const [id, sequence] of insertSubgroups.raw().all(subgroupValues) as [number, number][]) {
-        measurementValues[3 * (sequence - first)] = id;
-        measurementValues[3 * (sequence - first) + 2] = values[sequence];
+      measurementValues.length = 0;
+      for (let index = first; index < first + rowsPerStatement; index += 1) {
+        subgroupValues.push(ids[index], ...(subgroups[index] as TStoredRow));
+        measurementValues.push(ids[index], 0, values[index]);
       }
+      insertSubgroups.run(subgroupValues);
       insertMeasurements.run(measurementValues);
     }
   };

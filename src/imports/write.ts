@@ -42,7 +42,7 @@ export interface TBatchCounts {
 /**
  * Rows written per INSERT statement. One multi-row statement binds and steps once for many rows, which
  * saves about a quarter of the per-row cost of single-row statements (bench/import-1m.ts; 50-100 rows per
- * statement measured alike, 20 noticeably slower). 64 rows of the widest table bind 640 values, far under
+ * statement measured alike, 20 noticeably slower). 64 rows of the widest table bind 704 values, far under
  * SQLite's limit of 32,766.
  */
 export const ROWS_PER_STATEMENT = 64;
@@ -82,20 +82,25 @@ function createRowBatch(database: Database.Database, table: string, columns: rea
   };
 }
 
-const SUBGROUP_COLUMNS = ["characteristicId", "sequence", "timestamp", "count", "size", "sourceKey", "importBatchId", "mean", "spread", "createdAt"] as const;
+const SUBGROUP_COLUMNS = ["id", "characteristicId", "sequence", "timestamp", "count", "size", "sourceKey", "importBatchId", "mean", "spread", "createdAt"] as const;
 
 /**
- * Prepared statements for one characteristic and one batch; call inside an open transaction. Added
- * subgroups are gathered and written ROWS_PER_STATEMENT at a time; `flush` writes the rest (call it before
- * the transaction commits).
+ * Prepared statements for one characteristic and one batch; call inside an open write transaction (BEGIN
+ * IMMEDIATE). Added subgroups are gathered and written ROWS_PER_STATEMENT at a time; `flush` writes the
+ * rest (call it before the transaction commits).
  *
  * Whether a subgroup is already stored is settled before it is queued, so a queued subgroup is certain to
- * be added and can take its sequence at once. A source key begins with its subgroup's time
+ * be added and can take its sequence and its id at once. A source key begins with its subgroup's time
  * ("csv:<epoch ms>:…", ./assemble.ts), and stored subgroups are never later than the last one stored, so
  * only a subgroup no later than that time can match a stored key: those are looked up one by one (a
  * re-imported file), every later one is new. Keys within one file are distinct (the occurrence field). The
  * insert has no conflict clause: should a key still collide, the statement fails and the whole import
  * rolls back rather than dropping a row silently.
+ *
+ * Ids are given explicitly, counting on from the largest the table has ever used (its AUTOINCREMENT
+ * counter in sqlite_sequence, or its largest id), so the measurement and tag rows know their subgroup's id
+ * without reading it back: the open write transaction keeps every other writer out until the commit, and
+ * SQLite moves the counter past explicit ids. (Reading the ids back with RETURNING cost 0.7 us per row.)
  */
 export function createSubgroupWriter(
   database: Database.Database,
@@ -110,11 +115,15 @@ export function createSubgroupWriter(
       'SELECT "sequence", "timestamp" FROM "Subgroup" WHERE "characteristicId" = ? ORDER BY "sequence" DESC LIMIT 1',
     )
     .get(characteristicId);
+  let nextId = database
+    .prepare<[], number>(
+      `SELECT max(coalesce((SELECT "seq" FROM "sqlite_sequence" WHERE "name" = 'Subgroup'), 0), coalesce((SELECT max("id") FROM "Subgroup"), 0)) + 1`,
+    )
+    .pluck()
+    .get() as number;
   const isStored = database.prepare<[number, string]>('SELECT 1 FROM "Subgroup" WHERE "characteristicId" = ? AND "sourceKey" = ?').pluck();
   const width = SUBGROUP_COLUMNS.length;
-  // RETURNING gives each new row's id with its sequence: SQLite does not promise the rows come back in
-  // the order of the VALUES list.
-  const insertWhole = prepareInsert(database, "Subgroup", SUBGROUP_COLUMNS, ROWS_PER_STATEMENT, ' RETURNING "id", "sequence"').raw();
+  const insertWhole = prepareInsert(database, "Subgroup", SUBGROUP_COLUMNS, ROWS_PER_STATEMENT);
   const insertSingle = prepareInsert(database, "Subgroup", SUBGROUP_COLUMNS, 1);
   const measurements = createRowBatch(database, "Measurement", ["subgroupId", "position", "value"]);
   const tags = createRowBatch(database, "SubgroupTag", ["subgroupId", "key", "value"]);
@@ -124,25 +133,18 @@ export function createSubgroupWriter(
   let lastTime = lastStoredTime;
   const firstSequence = nextSequence;
 
-  // The queue: subgroup columns in statement order, and each subgroup's values and tags for the rows
-  // that point to it once its id is known.
+  // The queue: subgroup columns in statement order, and each subgroup's values and tags, whose rows are
+  // written after the subgroup rows they point to (foreign keys are checked at once).
   const columns: unknown[] = new Array(width * ROWS_PER_STATEMENT);
   const queuedValues: (readonly number[] | undefined)[] = new Array(ROWS_PER_STATEMENT);
   const queuedTags: Readonly<Record<string, string>>[] = new Array(ROWS_PER_STATEMENT);
-  const ids: number[] = new Array(ROWS_PER_STATEMENT);
   let queued = 0;
 
   function writeQueued(): void {
-    if (queued === ROWS_PER_STATEMENT) {
-      const firstQueued = nextSequence - queued;
-      for (const [id, sequence] of insertWhole.all(columns) as [number, number][]) ids[sequence - firstQueued] = id;
-    } else {
-      for (let index = 0; index < queued; index += 1) {
-        ids[index] = Number(insertSingle.run(columns.slice(width * index, width * index + width)).lastInsertRowid);
-      }
-    }
+    if (queued === ROWS_PER_STATEMENT) insertWhole.run(columns);
+    else for (let index = 0; index < queued; index += 1) insertSingle.run(columns.slice(width * index, width * index + width));
     for (let index = 0; index < queued; index += 1) {
-      const id = ids[index];
+      const id = columns[width * index];
       const values = queuedValues[index];
       if (values !== undefined) for (let position = 0; position < values.length; position += 1) measurements.add(id, position, values[position]);
       const subgroupTags = queuedTags[index] as Readonly<Record<string, string>>;
@@ -170,16 +172,18 @@ export function createSubgroupWriter(
       const summary = summarize(chart, subgroup.recorded);
       const sequence = nextSequence;
       const offset = width * queued;
-      columns[offset] = characteristicId;
-      columns[offset + 1] = sequence;
-      columns[offset + 2] = formatTime(subgroup.timestamp);
-      columns[offset + 3] = summary.count;
-      columns[offset + 4] = summary.size;
-      columns[offset + 5] = subgroup.sourceKey;
-      columns[offset + 6] = batchId;
-      columns[offset + 7] = summary.mean;
-      columns[offset + 8] = summary.spread;
-      columns[offset + 9] = createdAt;
+      columns[offset] = nextId;
+      columns[offset + 1] = characteristicId;
+      columns[offset + 2] = sequence;
+      columns[offset + 3] = formatTime(subgroup.timestamp);
+      columns[offset + 4] = summary.count;
+      columns[offset + 5] = summary.size;
+      columns[offset + 6] = subgroup.sourceKey;
+      columns[offset + 7] = batchId;
+      columns[offset + 8] = summary.mean;
+      columns[offset + 9] = summary.spread;
+      columns[offset + 10] = createdAt;
+      nextId += 1;
       queuedValues[queued] = subgroup.recorded.values;
       queuedTags[queued] = subgroup.tags;
       queued += 1;

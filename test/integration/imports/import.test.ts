@@ -6,6 +6,7 @@ import { describe, expect, test } from "vitest";
 import { reviseLimits } from "@/src/limits/revise";
 import { rejectedRowsPath } from "@/src/imports/rejected-rows";
 import { ROWS_PER_STATEMENT } from "@/src/imports/write";
+import { appendSubgroups } from "@/src/subgroups/append";
 import { DEFAULT_DEMO_SEED } from "@/src/demo/scenario";
 import { CAP_HEIGHT_MAPPING, capHeightCsv } from "./demo-continuation";
 import { createTestCharacteristic, NOW, runImport, tableCounts, openImportTestDatabase } from "./harness";
@@ -81,6 +82,25 @@ describe("importing a well-formed file", () => {
     const overlap = await runImport(harness, id, ["time,sample,diameter,cavity", ...subgroupRows(count - 70, count + 100)].join("\n"), { mapping });
     expect(overlap).toMatchObject({ status: "imported", subgroupsAlreadyPresent: 70, subgroupsAdded: 100, addedSequences: [count, count + 99] });
     expect(await harness.prisma.measurement.count({ where: { subgroup: { characteristicId: id } } })).toBe(4 * (count + 100));
+  });
+
+  test("imported subgroups take ids after every id the table has used, and later writers through Prisma follow them", async () => {
+    const mapping = { timestamp: "timestamp", value: "value", tags: [] };
+    const file = (first: number, count: number) =>
+      ["timestamp,value", ...Array.from({ length: count }, (_, offset) => `${new Date(Date.UTC(2026, 4, 1) + (first + offset) * 60_000).toISOString()},${18 + offset / 100}`)].join("\n");
+    const maxId = async () => (await harness.prisma.subgroup.aggregate({ _max: { id: true } }))._max.id ?? 0;
+    // The largest ids so far belong to a characteristic that is then deleted: they must not be used again.
+    const doomed = await createTestCharacteristic(harness.prisma, "imr", 1);
+    await runImport(harness, doomed, file(0, 10), { mapping });
+    const largestUsed = await maxId();
+    await harness.prisma.characteristic.delete({ where: { id: doomed } });
+
+    const id = await createTestCharacteristic(harness.prisma, "imr", 1);
+    await runImport(harness, id, file(0, 70), { mapping });
+    const imported = await harness.prisma.subgroup.findMany({ where: { characteristicId: id }, orderBy: { sequence: "asc" }, select: { id: true } });
+    expect(imported.map((row) => row.id)).toEqual(Array.from({ length: 70 }, (_, index) => largestUsed + 1 + index));
+    const appended = await appendSubgroups(harness.prisma, id, [{ timestamp: "2026-06-01T00:00:00Z", values: [18.1] }], { source: "api", now: NOW });
+    expect(appended.stored[0]?.id).toBe(largestUsed + 71);
   });
 
   test("importing the same file again adds nothing and counts every subgroup as already present", async () => {
