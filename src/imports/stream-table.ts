@@ -2,7 +2,7 @@
  * Streams a CSV file into rows without holding the file in memory: bytes are hashed (SHA-256) and
  * decoded as UTF-8 chunk by chunk, the header line picks the separator (the command-line reader's
  * `detectSeparator`), and papaparse parses the rest as a Node stream, one row at a time. The header and
- * row checks are the command-line reader's own (`readHeader`, `makeRow`, `describeParseError`), so a file
+ * row checks are the command-line reader's own (`readHeader`, `createRowMaker`, `describeParseError`), so a file
  * is read the same way by `analyze` and by the import.
  *
  * Line numbers count physical lines from 1 (the header is line 1 unless blank lines come first). Every
@@ -13,7 +13,7 @@ import { createHash } from "node:crypto";
 import { Readable } from "node:stream";
 import Papa from "papaparse";
 import type { CsvProblem } from "@/src/io/csv/errors";
-import { BYTE_ORDER_MARK, describeParseError, detectSeparator, makeRow, readHeader, type CsvRow, type CsvSeparator } from "@/src/io/csv/read-table";
+import { BYTE_ORDER_MARK, createRowMaker, describeParseError, detectSeparator, readHeader, type CsvRow, type CsvSeparator } from "@/src/io/csv/read-table";
 
 export interface TStreamedRow {
   readonly row: CsvRow;
@@ -100,21 +100,21 @@ export async function streamCsvRows(source: AsyncIterable<Uint8Array>, handlers:
     for (let next = await chunks.next(); next.done !== true; next = await chunks.next()) yield next.value;
   }
 
-  let header: string[] | undefined;
+  let makeRow: ReturnType<typeof createRowMaker> | undefined;
   const readRow = (written: string[], errors: readonly Papa.ParseError[]) => {
     const cells = written.map((cell) => cell.trim());
     const rowLine = line;
     line += 1 + countLineBreaks(written);
     if (!cells.some((cell) => cell !== "")) return;
     const rowProblems: CsvProblem[] = errors.map((error) => ({ line: rowLine, message: describeParseError(error) }));
-    if (header === undefined) {
-      header = readHeader(cells, rowLine, rowProblems);
+    if (makeRow === undefined) {
+      const header = readHeader(cells, rowLine, rowProblems);
+      makeRow = createRowMaker(header, separator);
       handlers.onHeader(header, rowLine, separator, rowProblems);
       return;
     }
     rowsRead += 1;
-    const row = makeRow(cells, header, rowLine, separator, rowProblems);
-    handlers.onRow({ row, written, problems: rowProblems });
+    handlers.onRow({ row: makeRow(cells, rowLine, rowProblems), written, problems: rowProblems });
   };
   await new Promise<void>((resolve, reject) => {
     Papa.parse<string[]>(Readable.from(whole()), {
@@ -132,7 +132,7 @@ export async function streamCsvRows(source: AsyncIterable<Uint8Array>, handlers:
       error: (error: Error) => reject(error),
     });
   });
-  if (header === undefined && problems.length === 0) problems.push({ line: 1, message: "the file is empty: a header row is required" });
+  if (makeRow === undefined && problems.length === 0) problems.push({ line: 1, message: "the file is empty: a header row is required" });
   handlers.onProgress?.({ bytesRead, rowsRead });
   return { fileHash: hash.digest("hex"), bytesRead, rowsRead, problems };
 }
