@@ -8,9 +8,10 @@ import { CHART_TYPES, type ChartType } from "@/shared/constants";
 import { ZCharacteristicInput, type TCharacteristicInput } from "@/shared/intake";
 import type { z } from "zod";
 import type { PrismaClient } from "@/src/db/connect";
+import type { Prisma } from "@/src/db/generated/client";
 import { AppError, parseInput } from "@/src/errors";
 import { limitSetInForce } from "@/src/limits/query";
-import { reevaluateSignals } from "@/src/signals/reevaluate";
+import { reevaluateWithin, REEVALUATION_TIMEOUT_MS } from "@/src/signals/reevaluate";
 
 export type TCharacteristicInputFields = z.input<typeof ZCharacteristicInput>;
 
@@ -38,13 +39,13 @@ const CHARACTERISTIC_VIEW = {
   process: { select: { id: true, name: true } },
 } as const;
 
-async function requireProcess(db: PrismaClient, processId: number): Promise<void> {
+async function requireProcess(db: PrismaClient | Prisma.TransactionClient, processId: number): Promise<void> {
   if ((await db.process.count({ where: { id: processId } })) === 0) {
     throw new AppError("not-found", `Process ${processId} does not exist`, [{ path: "processId", message: "does not exist" }]);
   }
 }
 
-async function refuseDuplicateName(db: PrismaClient, input: TCharacteristicInput, exceptId?: number): Promise<void> {
+async function refuseDuplicateName(db: PrismaClient | Prisma.TransactionClient, input: TCharacteristicInput, exceptId?: number): Promise<void> {
   const existing = await db.characteristic.findFirst({
     where: { processId: input.processId, name: input.name, ...(exceptId === undefined ? {} : { id: { not: exceptId } }) },
     select: { id: true },
@@ -88,32 +89,39 @@ export async function updateCharacteristic(
   options: { now: Date; changedBy: string } = { now: new Date(), changedBy: "characteristic settings" },
 ) {
   const parsed = parseInput(ZCharacteristicInput, input, "characteristic");
-  const current = await db.characteristic.findUnique({
-    where: { id },
-    select: { chartType: true, subgroupSize: true, processId: true, ruleSet: true, _count: { select: { subgroups: true } } },
-  });
-  if (current === null) throw new AppError("not-found", `Characteristic ${id} does not exist`);
-  if (current._count.subgroups > 0) {
-    const fixed = (["chartType", "subgroupSize", "processId"] as const).filter((field) => parsed[field] !== current[field]);
-    if (fixed.length > 0) {
-      throw new AppError(
-        "conflict",
-        `The ${fixed.join(", ")} cannot change once subgroups are stored (${current._count.subgroups} are); set up a new characteristic instead`,
-        fixed.map((field) => ({ path: field, message: "cannot change once subgroups are stored" })),
-      );
-    }
-  }
-  await requireProcess(db, parsed.processId);
-  await refuseDuplicateName(db, parsed, id);
-  await db.characteristic.update({ where: { id }, data: columnsOf(parsed) });
-  if (parsed.ruleSet !== current.ruleSet) {
-    await reevaluateSignals(db, id, {
-      trigger: "request",
-      reason: `rule set changed from "${current.ruleSet}" to "${parsed.ruleSet}"`,
-      requestedBy: options.changedBy,
-      now: options.now,
-    });
-  }
+  // The checks, the new settings and the re-evaluation a changed rule set causes commit together: stored
+  // signals never disagree with the rule set in force, and no other write slips in between.
+  await db.$transaction(
+    async (transaction) => {
+      const current = await transaction.characteristic.findUnique({
+        where: { id },
+        select: { chartType: true, subgroupSize: true, processId: true, ruleSet: true, _count: { select: { subgroups: true } } },
+      });
+      if (current === null) throw new AppError("not-found", `Characteristic ${id} does not exist`);
+      if (current._count.subgroups > 0) {
+        const fixed = (["chartType", "subgroupSize", "processId"] as const).filter((field) => parsed[field] !== current[field]);
+        if (fixed.length > 0) {
+          throw new AppError(
+            "conflict",
+            `The ${fixed.join(", ")} cannot change once subgroups are stored (${current._count.subgroups} are); set up a new characteristic instead`,
+            fixed.map((field) => ({ path: field, message: "cannot change once subgroups are stored" })),
+          );
+        }
+      }
+      await requireProcess(transaction, parsed.processId);
+      await refuseDuplicateName(transaction, parsed, id);
+      await transaction.characteristic.update({ where: { id }, data: columnsOf(parsed) });
+      if (parsed.ruleSet !== current.ruleSet) {
+        await reevaluateWithin(transaction, id, {
+          trigger: "request",
+          reason: `rule set changed from "${current.ruleSet}" to "${parsed.ruleSet}"`,
+          requestedBy: options.changedBy,
+          now: options.now,
+        });
+      }
+    },
+    { timeout: REEVALUATION_TIMEOUT_MS, maxWait: REEVALUATION_TIMEOUT_MS },
+  );
   return getCharacteristic(db, id);
 }
 
