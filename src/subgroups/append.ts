@@ -3,7 +3,8 @@
  *
  * 1. Every subgroup is checked with the characteristic's schema (`subgroupSchemaFor`); one invalid
  *    subgroup rejects the whole call, naming each bad subgroup and field. Timestamps must not go back in
- *    time (equal is allowed). Rows with a source key already stored are skipped (a re-import adds nothing).
+ *    time (equal is allowed). Rows with a source key already stored are skipped (a re-import or a retried
+ *    post adds nothing) and are not checked against time order: they are replays, not new points.
  * 2. Sequences continue after the last stored one; subgroups, measurements, tags and the cached summaries
  *    are written in one transaction together with the signals they raise.
  * 3. Live detection: each new point is evaluated against the limit set in force with the rules'
@@ -16,7 +17,7 @@
  * subgroups (src/signals/live-pattern.ts).
  */
 import type { RuleId } from "@/shared/constants";
-import { subgroupSchemaFor, type TSubgroupInput } from "@/shared/intake";
+import { subgroupSchemaFor, type TPostedSubgroup, type TSubgroupInput } from "@/shared/intake";
 import { chartTypeOf } from "@/src/characteristics/setup";
 import type { PrismaClient } from "@/src/db/connect";
 import type { Prisma } from "@/src/db/generated/client";
@@ -35,8 +36,19 @@ export interface TAppendOptions {
   readonly source: "api" | "entry" | "import";
   readonly now: Date;
   readonly importBatchId?: number;
-  /** One key per input (e.g. the file row's key); inputs whose key is already stored are skipped. */
-  readonly sourceKeys?: readonly string[];
+  /**
+   * One key per input (the file row's key, a caller's key; undefined for an input without one); inputs
+   * whose key is already stored are skipped.
+   */
+  readonly sourceKeys?: readonly (string | undefined)[];
+}
+
+/** What became of one input: stored by this call, or skipped because its source key was already stored. */
+export interface TAppendOutcome {
+  readonly status: "stored" | "already-present";
+  /** The stored subgroup: the new one, or the one stored earlier under the same key. */
+  readonly id: number;
+  readonly sequence: number;
 }
 
 export interface TStoredSubgroup {
@@ -59,6 +71,8 @@ export interface TAppendResult {
   readonly signals: TSignalView[];
   /** Inputs skipped because their source key was already stored. */
   readonly alreadyPresent: number;
+  /** One per input, in input order. */
+  readonly outcomes: TAppendOutcome[];
   /** The limit version the new points were judged against, or null with the reason. */
   readonly limits: { readonly limitSetId: number; readonly version: number } | null;
   readonly notes: string[];
@@ -94,7 +108,7 @@ function validate(
   chart: ReturnType<typeof chartTypeOf>,
   subgroupSize: number,
   inputs: readonly unknown[],
-  sourceKeys: readonly string[] | undefined,
+  sourceKeys: readonly (string | undefined)[] | undefined,
 ): TSubgroupInput[] {
   if (inputs.length === 0) rejectAll("No subgroups were given", [{ path: "subgroups", message: "must hold at least one subgroup" }]);
   if (sourceKeys !== undefined && sourceKeys.length !== inputs.length) {
@@ -105,6 +119,7 @@ function validate(
   const parsed = inputs.map((input, index) => check(schema, input, index, issues));
   const firstOf = new Map<string, number>();
   sourceKeys?.forEach((key, index) => {
+    if (key === undefined) return;
     const first = firstOf.get(key);
     if (first === undefined) firstOf.set(key, index);
     else issues.push({ index, path: `subgroups.${index}`, message: `repeats the key "${key}" of subgroup ${first}` });
@@ -212,9 +227,8 @@ export async function appendSubgroups(
       const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
       const rules = resolveRuleSet(characteristic.ruleSet);
       const known = await storedKeys(transaction, characteristicId, options.sourceKeys ?? []);
-      const chosen = parsed
-        .map((input, index) => ({ input, key: options.sourceKeys?.[index] }))
-        .filter(({ key }) => key === undefined || !known.has(key));
+      const keyed = parsed.map((input, index) => ({ input, key: options.sourceKeys?.[index] }));
+      const chosen = keyed.filter(({ key }) => key === undefined || !known.has(key));
       const alreadyPresent = parsed.length - chosen.length;
       const recent = characteristic.subgroups.reverse();
       const last = recent.at(-1) ?? null;
@@ -296,10 +310,18 @@ export async function appendSubgroups(
           firedRules: firedAt.get(sequence) ?? [],
         };
       });
+      let position = 0;
+      const outcomes = keyed.map(({ key }): TAppendOutcome => {
+        const present = key === undefined ? undefined : known.get(key);
+        if (present !== undefined) return { status: "already-present", ...present };
+        const { id, sequence } = stored[position++]!;
+        return { status: "stored", id, sequence };
+      });
       return {
         stored,
         signals,
         alreadyPresent,
+        outcomes,
         limits: segment === undefined ? null : { limitSetId: segment.limitSet.id, version: segment.limitSet.version },
         notes,
       };
@@ -307,6 +329,41 @@ export async function appendSubgroups(
     // A thousand subgroups with their measurements take seconds on a loaded machine; Prisma's default is 5 s.
     { timeout: APPEND_TIMEOUT_MS, maxWait: APPEND_TIMEOUT_MS },
   );
+}
+
+/**
+ * Callers' keys are stored as "api:<key>". Import keys all begin "csv:<time in epoch ms>", and the import
+ * looks a key up only for a subgroup no later than the last stored one (createSubgroupWriter,
+ * src/imports/write.ts): a caller's key equal to a later import key would pass that check and then break
+ * the import on the unique (characteristicId, sourceKey) index. The prefix keeps the two sets of keys
+ * apart, so whatever text a caller chooses cannot equal an import key.
+ */
+const CALLER_KEY_PREFIX = "api:";
+
+/** What became of one posted subgroup, with the caller's key (null when it had none). */
+export interface TPostedOutcome extends TAppendOutcome {
+  readonly key: string | null;
+}
+
+/**
+ * Appends subgroups posted through the API, each with an optional key of the caller's: a subgroup whose
+ * key is already stored on the characteristic is not stored again (a retried post), and the outcome of
+ * each posted subgroup says which happened. Subgroups without a key are always stored.
+ */
+export async function appendPostedSubgroups(
+  db: PrismaClient,
+  characteristicId: number,
+  posted: readonly TPostedSubgroup[],
+  now: Date,
+): Promise<TAppendResult & { readonly outcomes: TPostedOutcome[] }> {
+  const subgroups: TSubgroupInput[] = [];
+  const sourceKeys: (string | undefined)[] = [];
+  for (const { key, ...subgroup } of posted) {
+    subgroups.push(subgroup);
+    sourceKeys.push(key === undefined ? undefined : `${CALLER_KEY_PREFIX}${key}`);
+  }
+  const result = await appendSubgroups(db, characteristicId, subgroups, { source: "api", now, sourceKeys });
+  return { ...result, outcomes: result.outcomes.map((outcome, index) => ({ ...outcome, key: posted[index]!.key ?? null })) };
 }
 
 /**
@@ -374,15 +431,20 @@ async function storeFirings(
 /** Keys bound per query: well under SQLite's limit on bound parameters. */
 const KEYS_PER_QUERY = 500;
 
-/** Which of `keys` are already stored for the characteristic. */
-async function storedKeys(transaction: Prisma.TransactionClient, characteristicId: number, keys: readonly string[]): Promise<Set<string | null>> {
-  const known = new Set<string | null>();
+/** The subgroups already stored for the characteristic under any of `keys`, by key. */
+async function storedKeys(
+  transaction: Prisma.TransactionClient,
+  characteristicId: number,
+  sourceKeys: readonly (string | undefined)[],
+): Promise<Map<string, { id: number; sequence: number }>> {
+  const keys = sourceKeys.filter((key) => key !== undefined);
+  const known = new Map<string, { id: number; sequence: number }>();
   for (let first = 0; first < keys.length; first += KEYS_PER_QUERY) {
     const rows = await transaction.subgroup.findMany({
       where: { characteristicId, sourceKey: { in: keys.slice(first, first + KEYS_PER_QUERY) } },
-      select: { sourceKey: true },
+      select: { sourceKey: true, id: true, sequence: true },
     });
-    for (const row of rows) known.add(row.sourceKey);
+    for (const { sourceKey, id, sequence } of rows) known.set(sourceKey!, { id, sequence });
   }
   return known;
 }
