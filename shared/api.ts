@@ -200,14 +200,26 @@ export const ZSignalList = z.object({ signals: z.array(ZSignalView) }).meta({ id
 
 export const ZSubgroupsPostAnswer = z
   .object({
-    stored: z.array(ZStoredSubgroup),
+    outcomes: z
+      .array(
+        z.object({
+          key: z.string().nullable().meta({ description: "The key posted with the subgroup; null when it had none." }),
+          status: z.enum(["stored", "already-present"]).meta({
+            description: '"stored": stored by this request; "already-present": a subgroup with this key was stored earlier and was not stored again.',
+          }),
+          id: z.number().int().meta({ description: "The stored subgroup: the new one, or the one stored earlier under the key." }),
+          sequence: z.number().int(),
+        }),
+      )
+      .meta({ description: "One per posted subgroup, in the order posted." }),
+    stored: z.array(ZStoredSubgroup).meta({ description: "The subgroups this request stored (not those already present), with the rules that fired at each." }),
     signals: z
       .array(
         ZSignalView.extend({
           change: z.enum(["created", "extended"]).meta({ description: "Whether this request opened the signal or extended one." }),
         }),
       )
-      .meta({ description: "Signals the stored subgroups raised or extended." }),
+      .meta({ description: "Signals the subgroups stored by this request raised or extended; subgroups already present raise nothing." }),
     limits: z
       .object({ version: z.number().int() })
       .nullable()

@@ -28,6 +28,8 @@ export const INTAKE_LIMITS = {
   maxVariablesSubgroupSize: 25,
   /** Subgroups accepted in one API request. */
   subgroupsPerRequest: 1000,
+  /** A line system's own key for a subgroup: room for a UUID or a compound reading id. */
+  subgroupKeyLength: 100,
 } as const;
 
 const ZName = z.string().trim().min(1, { error: "is required" }).max(INTAKE_LIMITS.nameLength);
@@ -188,9 +190,42 @@ export function subgroupSchemaFor(chartType: ChartType, subgroupSize: number) {
   });
 }
 
+/**
+ * A line system's own key for one reading (its record id, say). Compared exactly, so a retried post with
+ * the same key is recognised and stores nothing twice; hence no trimming, and no spaces at either end
+ * (a stray one would make a retry look like a new reading).
+ */
+export const ZSubgroupKey = z
+  .string({ error: "must be text" })
+  .min(1, { error: "must not be empty" })
+  .max(INTAKE_LIMITS.subgroupKeyLength, { error: `must be at most ${INTAKE_LIMITS.subgroupKeyLength} characters` })
+  .refine((key) => key.trim() === key, { error: "must not begin or end with a space" })
+  .meta({
+    description:
+      "The line system's own key for this reading (e.g. its record id). A subgroup whose key is already stored " +
+      "on the characteristic is not stored again: a retried post is safe.",
+    example: "press4-2026-03-01-000127",
+  });
+
+/** One subgroup in an API post: the subgroup and, optionally, the caller's key for it. */
+export const ZPostedSubgroup = ZSubgroupInput.extend({ key: ZSubgroupKey.optional() });
+export type TPostedSubgroup = z.infer<typeof ZPostedSubgroup>;
+
 export const ZSubgroupsPost = z
   .object({
-    subgroups: z.array(ZSubgroupInput).min(1, { error: "must hold at least one subgroup" }).max(INTAKE_LIMITS.subgroupsPerRequest),
+    subgroups: z
+      .array(ZPostedSubgroup)
+      .min(1, { error: "must hold at least one subgroup" })
+      .max(INTAKE_LIMITS.subgroupsPerRequest)
+      .superRefine((subgroups, context) => {
+        const firstWith = new Map<string, number>();
+        subgroups.forEach(({ key }, index) => {
+          if (key === undefined) return;
+          const first = firstWith.get(key);
+          if (first === undefined) firstWith.set(key, index);
+          else context.addIssue({ code: "custom", path: [index, "key"], message: `repeats the key of subgroup ${first}` });
+        });
+      }),
   })
   .strict();
 export type TSubgroupsPost = z.infer<typeof ZSubgroupsPost>;

@@ -73,6 +73,14 @@ function issuesOf(error: z.ZodError): TIssue[] {
   );
 }
 
+/** An answer with the route's alternative success status (`answer.alternative` in its declaration). */
+export class StatusAnswer<T> {
+  constructor(
+    readonly status: 200 | 201,
+    readonly answer: T,
+  ) {}
+}
+
 /** `input` parsed with `schema`, or an "invalid-input" AppError naming every issue. */
 function validated<TSchema extends z.ZodType>(schema: TSchema, input: unknown, what: string): z.output<TSchema> {
   const parsed = schema.safeParse(input);
@@ -85,7 +93,9 @@ function validated<TSchema extends z.ZodType>(schema: TSchema, input: unknown, w
 /** A Next.js route handler for `route`, running `handle` with validated input. */
 export function apiHandler<TRoute extends TApiRoute>(
   route: TRoute,
-  handle: (call: TApiCall<TRoute>) => Promise<TAnswerWithDates<z.input<TRoute["answer"]["schema"]>>>,
+  handle: (
+    call: TApiCall<TRoute>,
+  ) => Promise<TAnswerWithDates<z.input<TRoute["answer"]["schema"]>> | StatusAnswer<TAnswerWithDates<z.input<TRoute["answer"]["schema"]>>>>,
 ): TRouteHandler {
   return async (request, context) => {
     try {
@@ -106,9 +116,13 @@ export function apiHandler<TRoute extends TApiRoute>(
         body,
         now: new Date(),
       } as TApiCall<TRoute>);
+      const { status, answer: unchecked } = result instanceof StatusAnswer ? result : { status: route.answer.status, answer: result };
+      if (status !== route.answer.status && status !== route.answer.alternative?.status) {
+        throw new Error(`The handler of ${route.method.toUpperCase()} ${route.path} answered ${status}, a status its declaration does not name`);
+      }
       // The JSON round trip turns Dates into ISO strings before the answer schema checks and trims.
-      const answer = route.answer.schema.parse(JSON.parse(JSON.stringify(result)));
-      return Response.json(answer, { status: route.answer.status });
+      const answer = route.answer.schema.parse(JSON.parse(JSON.stringify(unchecked)));
+      return Response.json(answer, { status });
     } catch (error) {
       return problemAnswer(error);
     }

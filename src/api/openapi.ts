@@ -40,10 +40,12 @@ function buildDocument() {
         ...(route.body ? { body: { required: true, content: { [route.bodyMediaType ?? JSON_MEDIA_TYPE]: { schema: route.body } } } } : {}),
       },
       responses: {
-        [route.answer.status]: {
-          description: route.answer.description,
-          content: { [route.answer.mediaType ?? JSON_MEDIA_TYPE]: { schema: route.answer.schema } },
-        },
+        ...Object.fromEntries(
+          [route.answer, ...(route.answer.alternative ? [route.answer.alternative] : [])].map(({ status, description }) => [
+            status,
+            { description, content: { [route.answer.mediaType ?? JSON_MEDIA_TYPE]: { schema: route.answer.schema } } },
+          ]),
+        ),
         ...Object.fromEntries(
           errorStatuses.map((status) => [
             status,

@@ -23,6 +23,11 @@ export interface TApiRoute {
     readonly schema: z.ZodType;
     /** Media type of the answer when it is not JSON (e.g. "application/x-ndjson", "text/csv"). */
     readonly mediaType?: string;
+    /**
+     * A second success status with the same answer schema, which the handler chooses by returning a
+     * `StatusAnswer` (src/api/handler.ts): e.g. 200 for a retried post that stored nothing new.
+     */
+    readonly alternative?: { readonly status: 200 | 201; readonly description: string };
   };
   /**
    * Schemas the route uses where OpenAPI cannot point at them (JSON inside a query parameter); the

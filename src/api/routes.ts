@@ -111,13 +111,22 @@ export const postSubgroupsRoute = defineApiRoute({
     `All or nothing: if any subgroup is invalid nothing is stored and every problem is named by its path ` +
     `(e.g. "subgroups.3.values.2"). Which fields a subgroup needs depends on the chart: values (exactly the ` +
     `subgroup size) for variables charts; count and size for p and np; count for c; count and units for u. ` +
-    `At most ${INTAKE_LIMITS.subgroupsPerRequest} subgroups per request; timestamps must not go backwards.`,
+    `At most ${INTAKE_LIMITS.subgroupsPerRequest} subgroups per request; timestamps must not go backwards. ` +
+    `A subgroup may carry the line system's own \`key\` (unique within the request): one whose key is already ` +
+    `stored on the characteristic is not stored again and is not checked against time order, so a post that ` +
+    `timed out can be sent again as it was.`,
   params: ZIdParams,
   body: ZSubgroupsPost.meta({ id: "SubgroupsPost" }),
   answer: {
     status: 201,
-    description: "The stored subgroups with their sequences, and the signals they raised or extended.",
+    description:
+      "At least one subgroup was stored: what became of each posted subgroup, the stored ones with their sequences, " +
+      "and the signals they raised or extended.",
     schema: ZSubgroupsPostAnswer,
+    alternative: {
+      status: 200,
+      description: "Every subgroup was posted with a key that is already stored: nothing was stored; the outcomes name the stored subgroups.",
+    },
   },
   errors: [...BODY_ERRORS, 404],
 });

@@ -38,7 +38,7 @@ describe("the OpenAPI document", () => {
   const document = JSON.parse(JSON.stringify(openApiDocument())) as {
     openapi: string;
     info: { title: string; version: string };
-    paths: Record<string, Record<string, { responses: Record<string, { description: string }>; parameters?: { name: string; in: string }[] }>>;
+    paths: Record<string, Record<string, { responses: Record<string, { description: string; content?: unknown }>; parameters?: { name: string; in: string }[] }>>;
     components: { schemas: Record<string, unknown> };
   };
 
@@ -83,8 +83,17 @@ describe("the OpenAPI document", () => {
     );
   });
 
-  test("the error answers of the subgroup post name the statuses the wrapper produces", () => {
+  test("the answers of the subgroup post name the statuses the wrapper produces", () => {
     const responses = document.paths["/api/v1/characteristics/{id}/subgroups"]?.post?.responses ?? {};
-    expect(Object.keys(responses).sort()).toEqual(["201", "400", "403", "404", "413", "415", "422", "500"]);
+    expect(Object.keys(responses).sort()).toEqual(["200", "201", "400", "403", "404", "413", "415", "422", "500"]);
+    // 200 (a replay that stored nothing) answers the same shape as 201.
+    expect(responses["200"]).toMatchObject({ content: responses["201"]!.content });
+  });
+
+  test("the subgroup post shows the caller's key and the outcome of each subgroup", () => {
+    const post = document.components.schemas.SubgroupsPost as { properties: { subgroups: { items: { properties: Record<string, unknown> } } } };
+    expect(post.properties.subgroups.items.properties.key).toMatchObject({ type: "string", minLength: 1, maxLength: 100 });
+    const answer = document.components.schemas.SubgroupsPostAnswer as { properties: { outcomes: { items: { properties: Record<string, unknown> } } } };
+    expect(answer.properties.outcomes.items.properties.status).toMatchObject({ enum: ["stored", "already-present"] });
   });
 });
