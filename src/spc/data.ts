@@ -81,11 +81,11 @@ export function attributesData(counts: ArrayLike<number>, sizes?: ArrayLike<numb
 }
 
 /** p and np charts count defective items in a sample: a count above its sample size is impossible. */
-export function assertDefectivesWithinSizes(data: AttributesData): void {
-  for (let index = 0; index < data.counts.length; index++) {
-    if (data.counts[index]! > data.sizes[index]!) {
+export function assertDefectivesWithinSizes(counts: ArrayLike<number>, sizes: ArrayLike<number>): void {
+  for (let index = 0; index < counts.length; index++) {
+    if (counts[index]! > sizes[index]!) {
       throw new SpcInputError(
-        `subgroup ${index}: ${data.counts[index]} defectives exceed the sample size ${data.sizes[index]}`,
+        `subgroup ${index}: ${counts[index]} defectives exceed the sample size ${sizes[index]}`,
         index,
       );
     }

@@ -14,16 +14,17 @@ import { SpcInputError, type AttributesData, type ChartData, type ChartParameter
 import { resolveBaseline } from "./baseline";
 import { requireAttributes, type EstimateOptions } from "./chart-input";
 import { constantSigma, limitSeries } from "./series";
+import { summaryArray, type SubgroupSummaries } from "./summaries";
 
 export type AttributesChart = "p" | "np" | "c" | "u";
 
 /** The one sample size of an np chart, or an error naming the first subgroup of another size. */
-function commonSampleSize(data: AttributesData, expected?: number): number {
-  const size = expected ?? data.sizes[0]!;
-  const index = data.sizes.findIndex((value) => value !== size);
+function commonSampleSize(sizes: Float64Array, expected?: number): number {
+  const size = expected ?? sizes[0]!;
+  const index = sizes.findIndex((value) => value !== size);
   if (index >= 0) {
     throw new SpcInputError(
-      `subgroup ${index} has sample size ${data.sizes[index]} where ${size} is expected (the np chart needs one sample size; use the p chart)`,
+      `subgroup ${index} has sample size ${sizes[index]} where ${size} is expected (the np chart needs one sample size; use the p chart)`,
       index,
     );
   }
@@ -32,13 +33,13 @@ function commonSampleSize(data: AttributesData, expected?: number): number {
 
 function checkedAttributes(chart: AttributesChart, data: ChartData): AttributesData {
   const attributes = requireAttributes(data, chart);
-  if (chart === "p" || chart === "np") assertDefectivesWithinSizes(attributes);
+  if (chart === "p" || chart === "np") assertDefectivesWithinSizes(attributes.counts, attributes.sizes);
   return attributes;
 }
 
 export function estimateAttributes(chart: AttributesChart, data: ChartData, options: EstimateOptions): ChartParameters {
   const attributes = checkedAttributes(chart, data);
-  const subgroupSize = chart === "np" ? commonSampleSize(attributes) : 1;
+  const subgroupSize = chart === "np" ? commonSampleSize(attributes.sizes) : 1;
   const baseline = resolveBaseline(attributes.counts.length, options.baseline);
   let countTotal = 0;
   let sizeTotal = 0;
@@ -51,14 +52,16 @@ export function estimateAttributes(chart: AttributesChart, data: ChartData, opti
   return { chart, center: countTotal / sizeTotal, sigma: NaN, subgroupSize, baseline: baseline.summary };
 }
 
-export function evaluateAttributes(chart: AttributesChart, data: ChartData, parameters: ChartParameters): StatisticSeries {
-  const attributes = checkedAttributes(chart, data);
-  const { counts, sizes } = attributes;
-  const rate = parameters.center;
+/** The plotted statistic from the counts (and their sizes for p, np and u) under frozen parameters. */
+export function attributesSeries(chart: AttributesChart, summaries: SubgroupSummaries, parameters: ChartParameters): StatisticSeries {
+  const counts = summaryArray(summaries, "counts", chart);
   const count = counts.length;
+  const rate = parameters.center;
   switch (chart) {
     case "p":
     case "u": {
+      const sizes = summaryArray(summaries, "sizes", chart, count);
+      if (chart === "p") assertDefectivesWithinSizes(counts, sizes);
       const points = new Float64Array(count);
       const sigma = new Float64Array(count);
       const variance = chart === "p" ? rate * (1 - rate) : rate;
@@ -77,10 +80,12 @@ export function evaluateAttributes(chart: AttributesChart, data: ChartData, para
       });
     }
     case "np": {
-      const size = commonSampleSize(attributes, parameters.subgroupSize);
+      const sizes = summaryArray(summaries, "sizes", chart, count);
+      assertDefectivesWithinSizes(counts, sizes);
+      const size = commonSampleSize(sizes, parameters.subgroupSize);
       return limitSeries({
         key: "np",
-        points: Float64Array.from(counts),
+        points: counts,
         center: size * rate,
         sigma: constantSigma(count, Math.sqrt(size * rate * (1 - rate))),
         floor: 0,
@@ -91,7 +96,7 @@ export function evaluateAttributes(chart: AttributesChart, data: ChartData, para
     case "c":
       return limitSeries({
         key: "c",
-        points: Float64Array.from(counts),
+        points: counts,
         center: rate,
         sigma: constantSigma(count, Math.sqrt(rate)),
         floor: 0,

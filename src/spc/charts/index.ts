@@ -4,17 +4,21 @@
  * `estimateParameters` estimates the centre and σ from a baseline window, leaving out excluded
  * subgroups (confirmed assignable causes), so limits are recomputed without them. `evaluateChart`
  * applies frozen parameters to every point of (possibly later) data: limits for each point follow from
- * the parameters and that point's own size. Formulas and sources are in each family's file.
+ * the parameters and that point's own size. Evaluation works on per-subgroup summaries (summaries.ts):
+ * `evaluateChart` summarises the data, `evaluateSummaries` takes summaries cached elsewhere and a slice
+ * start, and both run the same formulas. Formulas and sources are in each family's file.
  */
 import type { ChartData, ChartParameters, ChartResult, ChartType, StatisticSeries } from "../types";
-import { estimateAttributes, evaluateAttributes } from "./attributes";
+import { attributesSeries, estimateAttributes } from "./attributes";
 import type { EstimateOptions } from "./chart-input";
-import { estimateCusum, evaluateCusum } from "./cusum";
-import { estimateEwma, evaluateEwma } from "./ewma";
-import { estimateIndividuals, evaluateIndividuals } from "./individuals";
-import { estimateSubgroups, evaluateSubgroups } from "./subgroups";
+import { cusumSeries, estimateCusum } from "./cusum";
+import { estimateEwma, ewmaSeries } from "./ewma";
+import { estimateIndividuals, individualsSeries } from "./individuals";
+import { estimateSubgroups, subgroupSeries } from "./subgroups";
+import { SEGMENT_START, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
 
 export type { EstimateOptions } from "./chart-input";
+export { SEGMENT_START, SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
 export { zoneOf } from "./series";
 export { DEFAULT_EWMA_DESIGN } from "./ewma";
 export { DEFAULT_CUSUM_DESIGN } from "./cusum";
@@ -39,26 +43,37 @@ export function estimateParameters(chart: ChartType, data: ChartData, options: E
   }
 }
 
-function evaluateStatistics(data: ChartData, parameters: ChartParameters): StatisticSeries[] {
+/**
+ * The chart's statistics from per-subgroup summaries (SUMMARY_FIELDS[chart] says which), under frozen
+ * parameters, for a slice of a limit segment that starts at `start` (default: the segment's first point).
+ * The one implementation of every chart's formulas: `evaluateChart` summarises measurements and calls it.
+ * The plotted points may share the summaries' arrays; neither is written afterwards.
+ */
+export function evaluateSummaries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart = SEGMENT_START): ChartResult {
+  return { chart: parameters.chart, parameters, statistics: evaluateStatistics(summaries, parameters, start) };
+}
+
+function evaluateStatistics(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart): StatisticSeries[] {
   const { chart } = parameters;
   switch (chart) {
     case "imr":
-      return evaluateIndividuals(data, parameters);
+      return individualsSeries(summaries, parameters, start);
     case "xbar-r":
     case "xbar-s":
-      return evaluateSubgroups(chart, data, parameters);
+      return subgroupSeries(chart, summaries, parameters);
     case "p":
     case "np":
     case "c":
     case "u":
-      return [evaluateAttributes(chart, data, parameters)];
+      return [attributesSeries(chart, summaries, parameters)];
     case "ewma":
-      return [evaluateEwma(data, parameters)];
+      return [ewmaSeries(summaries, parameters, start)];
     case "cusum":
-      return evaluateCusum(data, parameters);
+      return cusumSeries(summaries, parameters, start);
   }
 }
 
+/** The chart's statistics for measurements or counts, whole: their summaries evaluated from the segment's start. */
 export function evaluateChart(data: ChartData, parameters: ChartParameters): ChartResult {
-  return { chart: parameters.chart, parameters, statistics: evaluateStatistics(data, parameters) };
+  return evaluateSummaries(summariesOf(data, parameters), parameters);
 }

@@ -4,7 +4,8 @@
  * σ̂ = MR̄/d2(2) with MRᵢ = |xᵢ − xᵢ₋₁|; x chart CL = x̄, limits x̄ ± 3σ̂ (= x̄ ± E2·MR̄);
  * MR chart CL = MR̄ = d2σ̂, σ_MR = d3σ̂, UCL = D4·MR̄, LCL = D3·MR̄ = 0
  * (Montgomery, Introduction to Statistical Quality Control, §6.4; NIST/SEMATECH e-Handbook of Statistical
- * Methods, §6.3.2.2). The first moving range is undefined and plotted as NaN.
+ * Methods, §6.3.2.2). The first moving range of a segment is undefined and plotted as NaN; a slice that
+ * starts later takes its first moving range from the previous point's value.
  */
 import { controlConstants } from "../constants";
 import { commonSubgroupSize, subgroupCount } from "../data";
@@ -12,6 +13,7 @@ import type { ChartData, ChartParameters, StatisticSeries } from "../types";
 import { resolveBaseline } from "./baseline";
 import { requireVariables, type EstimateOptions } from "./chart-input";
 import { constantSigma, limitSeries } from "./series";
+import { carriedState, summaryArray, type SliceStart, type SubgroupSummaries } from "./summaries";
 import { movingRangeSigma, usedMean } from "./within-sigma";
 
 export function estimateIndividuals(data: ChartData, options: EstimateOptions): ChartParameters {
@@ -27,15 +29,19 @@ export function estimateIndividuals(data: ChartData, options: EstimateOptions): 
   };
 }
 
-export function evaluateIndividuals(data: ChartData, parameters: ChartParameters): StatisticSeries[] {
-  const variables = requireVariables(data, "imr");
-  commonSubgroupSize(variables, 1);
-  const { values } = variables;
+/**
+ * The x and MR statistics of a slice from its values (the means of subgroups of one); the first moving
+ * range is taken from the previous point's value, and is NaN at a segment's first point.
+ */
+export function individualsSeries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart): StatisticSeries[] {
+  const values = summaryArray(summaries, "means", "imr");
   const { d2, d3 } = controlConstants(2);
   const movingRanges = new Float64Array(values.length);
-  movingRanges[0] = NaN;
-  for (let index = 1; index < values.length; index++) {
-    movingRanges[index] = Math.abs(values[index]! - values[index - 1]!);
+  let before = carriedState(start, "mean", "imr", NaN);
+  for (let index = 0; index < values.length; index++) {
+    const value = values[index]!;
+    movingRanges[index] = Math.abs(value - before);
+    before = value;
   }
   return [
     limitSeries({

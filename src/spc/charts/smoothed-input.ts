@@ -1,9 +1,8 @@
 /**
  * Shared Phase I estimate for the EWMA and CUSUM charts, which plot individual values (n = 1) or
- * subgroup means (n ≥ 2): centre = target or baseline mean, σ̂ from moving ranges or R̄/d2 (within-sigma.ts),
- * and the plotted values with their standard deviation σ_x̄ = σ̂/√n.
+ * subgroup means (n ≥ 2): centre = target or baseline mean, σ̂ from moving ranges or R̄/d2 (within-sigma.ts).
  */
-import { commonSubgroupSize, subgroupCount, subgroupMeans } from "../data";
+import { commonSubgroupSize, subgroupCount } from "../data";
 import type { ChartData, ChartParameters, ChartType } from "../types";
 import { resolveBaseline } from "./baseline";
 import { requireVariables, type EstimateOptions } from "./chart-input";
@@ -25,15 +24,4 @@ export function estimateSmoothed(
     subgroupSize,
     baseline: baseline.summary,
   };
-}
-
-/** The plotted values (subgroup means) and their standard deviation under frozen parameters. */
-export function smoothedInput(
-  chart: Extract<ChartType, "ewma" | "cusum">,
-  data: ChartData,
-  parameters: ChartParameters,
-): { means: Float64Array; meanSigma: number } {
-  const variables = requireVariables(data, chart);
-  const subgroupSize = commonSubgroupSize(variables, parameters.subgroupSize);
-  return { means: subgroupMeans(variables), meanSigma: parameters.sigma / Math.sqrt(subgroupSize) };
 }

@@ -10,14 +10,15 @@
  * (Montgomery §6.3.2 gives variable-size S-chart formulas; they are not implemented here.)
  */
 import { controlConstants } from "../constants";
-import { commonSubgroupSize, subgroupCount, subgroupMeans, subgroupRanges, subgroupStandardDeviations } from "../data";
+import { commonSubgroupSize, subgroupCount, subgroupMeans } from "../data";
 import type { ChartData, ChartParameters, StatisticSeries } from "../types";
 import { resolveBaseline } from "./baseline";
 import { requireVariables, type EstimateOptions } from "./chart-input";
 import { constantSigma, limitSeries } from "./series";
-import { rangeSigma, standardDeviationSigma, usedMean } from "./within-sigma";
+import { summaryArray, type SubgroupSummaries } from "./summaries";
+import { meanSigmaOf, rangeSigma, standardDeviationSigma, usedMean } from "./within-sigma";
 
-type SubgroupChart = "xbar-r" | "xbar-s";
+export type SubgroupChart = "xbar-r" | "xbar-s";
 
 export function estimateSubgroups(chart: SubgroupChart, data: ChartData, options: EstimateOptions): ChartParameters {
   const variables = requireVariables(data, chart);
@@ -37,18 +38,18 @@ export function estimateSubgroups(chart: SubgroupChart, data: ChartData, options
   };
 }
 
-export function evaluateSubgroups(chart: SubgroupChart, data: ChartData, parameters: ChartParameters): StatisticSeries[] {
-  const variables = requireVariables(data, chart);
-  const subgroupSize = commonSubgroupSize(variables, parameters.subgroupSize);
-  const { d2, d3, c4 } = controlConstants(subgroupSize);
+/** The X-bar and R (or S) statistics from the subgroup means and spreads (ranges or standard deviations). */
+export function subgroupSeries(chart: SubgroupChart, summaries: SubgroupSummaries, parameters: ChartParameters): StatisticSeries[] {
+  const { d2, d3, c4 } = controlConstants(parameters.subgroupSize);
   const { sigma } = parameters;
-  const count = subgroupCount(variables);
-  const means = subgroupMeans(variables);
+  const means = summaryArray(summaries, "means", chart);
+  const spreads = summaryArray(summaries, "spreads", chart, means.length);
+  const count = means.length;
   const mean = limitSeries({
     key: "xbar",
     points: means,
     center: parameters.center,
-    sigma: constantSigma(count, sigma / Math.sqrt(subgroupSize)),
+    sigma: constantSigma(count, meanSigmaOf(parameters)),
     floor: -Infinity,
     zoneRulesByDefault: true,
   });
@@ -56,7 +57,7 @@ export function evaluateSubgroups(chart: SubgroupChart, data: ChartData, paramet
     chart === "xbar-r"
       ? limitSeries({
           key: "r",
-          points: subgroupRanges(variables),
+          points: spreads,
           center: d2 * sigma,
           sigma: constantSigma(count, d3 * sigma),
           floor: 0,
@@ -64,7 +65,7 @@ export function evaluateSubgroups(chart: SubgroupChart, data: ChartData, paramet
         })
       : limitSeries({
           key: "s",
-          points: subgroupStandardDeviations(variables, means),
+          points: spreads,
           center: c4 * sigma,
           sigma: constantSigma(count, Math.sqrt(1 - c4 * c4) * sigma),
           floor: 0,

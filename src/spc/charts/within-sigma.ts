@@ -3,11 +3,12 @@
  * subgroups only (Montgomery, Introduction to Statistical Quality Control, §6.2–6.4):
  * - individuals: σ̂ = MR̄ / d2(2), where MRᵢ = |xᵢ − xᵢ₋₁| counts only when both points are in the baseline
  *   (a moving range touching an excluded point would carry the assignable cause into σ̂);
- * - subgroups of n: σ̂ = R̄ / d2(n) or σ̂ = S̄ / c4(n).
+ * - subgroups of n: σ̂ = R̄ / d2(n) or σ̂ = S̄ / c4(n);
+ * and, from frozen parameters, the standard deviation of a subgroup mean, σ_x̄ = σ̂/√n.
  */
 import { controlConstants } from "../constants";
 import { subgroupMeans, subgroupRanges, subgroupStandardDeviations } from "../data";
-import { SpcInputError, type VariablesData } from "../types";
+import { SpcInputError, type ChartParameters, type VariablesData } from "../types";
 
 /** Mean over the used entries of `values`. */
 export function usedMean(values: Float64Array, used: Uint8Array): number {
@@ -57,4 +58,9 @@ export function individualsOrSubgroupSigma(
   const means = subgroupMeans(data);
   const sigma = subgroupSize === 1 ? movingRangeSigma(means, used) : rangeSigma(data, subgroupSize, used);
   return { means, sigma };
+}
+
+/** σ_x̄ = σ̂/√n: the standard deviation of a mean of n individual values (X-bar, EWMA and CUSUM charts). */
+export function meanSigmaOf(parameters: ChartParameters): number {
+  return parameters.sigma / Math.sqrt(parameters.subgroupSize);
 }
