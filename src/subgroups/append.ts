@@ -131,11 +131,14 @@ function validate(
   return parsed as TSubgroupInput[];
 }
 
-/** Refuses timestamps earlier than the one before them (the last stored subgroup, then each other). */
-function checkTimeOrder(inputs: readonly TSubgroupInput[], last: { sequence: number; timestamp: Date } | null): void {
+/**
+ * Refuses timestamps earlier than the one before them (the last stored subgroup, then each other), among
+ * the inputs to be stored; `index` is each one's place in the call, which the issues name.
+ */
+function checkTimeOrder(inputs: readonly { input: TSubgroupInput; index: number }[], last: { sequence: number; timestamp: Date } | null): void {
   let previous = last === null ? null : { time: last.timestamp.getTime(), what: `the last stored subgroup (sequence ${last.sequence})` };
   const issues: TIssue[] = [];
-  inputs.forEach((input, index) => {
+  for (const { input, index } of inputs) {
     const time = new Date(input.timestamp).getTime();
     if (previous !== null && time < previous.time) {
       issues.push({
@@ -145,7 +148,7 @@ function checkTimeOrder(inputs: readonly TSubgroupInput[], last: { sequence: num
       });
     }
     previous = { time, what: `subgroup ${index}` };
-  });
+  }
   if (issues.length > 0) rejectAll(`Timestamps go backwards; nothing was stored`, issues);
 }
 
@@ -227,12 +230,12 @@ export async function appendSubgroups(
       const parsed = validate(chart, characteristic.subgroupSize, inputs, options.sourceKeys);
       const rules = resolveRuleSet(characteristic.ruleSet);
       const known = await storedKeys(transaction, characteristicId, options.sourceKeys ?? []);
-      const keyed = parsed.map((input, index) => ({ input, key: options.sourceKeys?.[index] }));
+      const keyed = parsed.map((input, index) => ({ input, index, key: options.sourceKeys?.[index] }));
       const chosen = keyed.filter(({ key }) => key === undefined || !known.has(key));
       const alreadyPresent = parsed.length - chosen.length;
       const recent = characteristic.subgroups.reverse();
       const last = recent.at(-1) ?? null;
-      checkTimeOrder(chosen.map(({ input }) => input), last);
+      checkTimeOrder(chosen, last);
       const firstSequence = (last?.sequence ?? -1) + 1;
       const summaries = chosen.map(({ input }) => ({ ...summarize(chart, input), ewma: null, cusumUpper: null, cusumLower: null }));
 
