@@ -15,7 +15,7 @@ import { cusumSeries, estimateCusum } from "./cusum";
 import { estimateEwma, ewmaSeries } from "./ewma";
 import { estimateIndividuals, individualsSeries } from "./individuals";
 import { estimateSubgroups, subgroupSeries } from "./subgroups";
-import { SEGMENT_START, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
+import { assertSliceStart, SEGMENT_START, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
 
 export type { EstimateOptions } from "./chart-input";
 export { SEGMENT_START, SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
@@ -50,6 +50,7 @@ export function estimateParameters(chart: ChartType, data: ChartData, options: E
  * The plotted points may share the summaries' arrays; neither is written afterwards.
  */
 export function evaluateSummaries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart = SEGMENT_START): ChartResult {
+  assertSliceStart(start);
   return { chart: parameters.chart, parameters, statistics: evaluateStatistics(summaries, parameters, start) };
 }
 

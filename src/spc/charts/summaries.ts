@@ -90,12 +90,16 @@ export function summaryArray(summaries: SubgroupSummaries, field: SummaryField, 
   return array;
 }
 
+/** Throws SpcInputError unless the slice starts at a whole position of 0 or more. */
+export function assertSliceStart(start: SliceStart): void {
+  if (!Number.isInteger(start.firstIndex) || start.firstIndex < 0) {
+    throw new SpcInputError(`a slice starts at a whole position of 0 or more in its segment, not ${start.firstIndex}`);
+  }
+}
+
 /** The state `field` the slice starts from: `atSegmentStart` on a segment's first point, else the previous point's. */
 export function carriedState(start: SliceStart, field: keyof CarriedState, chart: ChartType, atSegmentStart: number): number {
   const { firstIndex } = start;
-  if (!Number.isInteger(firstIndex) || firstIndex < 0) {
-    throw new SpcInputError(`a slice starts at a whole position of 0 or more in its segment, not ${firstIndex}`);
-  }
   if (firstIndex === 0) return atSegmentStart;
   const value = start.previous?.[field];
   if (value === undefined || !Number.isFinite(value)) {
