@@ -114,7 +114,7 @@ export const postSubgroupsRoute = defineApiRoute({
     `At most ${INTAKE_LIMITS.subgroupsPerRequest} subgroups per request; timestamps must not go backwards. ` +
     `A subgroup may carry the line system's own \`key\` (unique within the request): one whose key is already ` +
     `stored on the characteristic is not stored again and is not checked against time order, so a post that ` +
-    `timed out can be sent again as it was.`,
+    `timed out can be sent again as it was. A key already stored for a reading at another time is a conflict (409).`,
   params: ZIdParams,
   body: ZSubgroupsPost.meta({ id: "SubgroupsPost" }),
   answer: {
@@ -128,7 +128,7 @@ export const postSubgroupsRoute = defineApiRoute({
       description: "Every subgroup was posted with a key that is already stored: nothing was stored; the outcomes name the stored subgroups.",
     },
   },
-  errors: [...BODY_ERRORS, 404],
+  errors: [...BODY_ERRORS, 404, 409],
 });
 
 export const listSignalsRoute = defineApiRoute({

@@ -4,7 +4,8 @@
  * 1. Every subgroup is checked with the characteristic's schema (`subgroupSchemaFor`); one invalid
  *    subgroup rejects the whole call, naming each bad subgroup and field. Timestamps must not go back in
  *    time (equal is allowed). Rows with a source key already stored are skipped (a re-import or a retried
- *    post adds nothing) and are not checked against time order: they are replays, not new points.
+ *    post adds nothing) and are not checked against time order: they are replays, not new points. A key
+ *    already stored for a subgroup at another time is a conflict: the key was used for two readings.
  * 2. Sequences continue after the last stored one; subgroups, measurements, tags and the cached summaries
  *    are written in one transaction together with the signals they raise.
  * 3. Live detection: each new point is evaluated against the limit set in force with the rules'
@@ -231,6 +232,7 @@ export async function appendSubgroups(
       const rules = resolveRuleSet(characteristic.ruleSet);
       const known = await storedKeys(transaction, characteristicId, options.sourceKeys ?? []);
       const keyed = parsed.map((input, index) => ({ input, index, key: options.sourceKeys?.[index] }));
+      checkReplays(keyed, known);
       const chosen = keyed.filter(({ key }) => key === undefined || !known.has(key));
       const alreadyPresent = parsed.length - chosen.length;
       const recent = characteristic.subgroups.reverse();
@@ -316,7 +318,7 @@ export async function appendSubgroups(
       let position = 0;
       const outcomes = keyed.map(({ key }): TAppendOutcome => {
         const present = key === undefined ? undefined : known.get(key);
-        if (present !== undefined) return { status: "already-present", ...present };
+        if (present !== undefined) return { status: "already-present", id: present.id, sequence: present.sequence };
         const { id, sequence } = stored[position++]!;
         return { status: "stored", id, sequence };
       });
@@ -431,6 +433,34 @@ async function storeFirings(
   return rows.map(toSignalView);
 }
 
+interface TKnownSubgroup {
+  readonly id: number;
+  readonly sequence: number;
+  readonly timestamp: Date;
+}
+
+/**
+ * Refuses an input whose key is already stored for a reading at another time: a key names one reading, so
+ * the line system has used it twice (a counter reset, say), and skipping the input as a replay would lose
+ * a reading without a word. Only the time is compared: a replay sends the reading as it was, while the
+ * stored values may since have been corrected.
+ */
+function checkReplays(keyed: readonly { input: TSubgroupInput; index: number; key: string | undefined }[], known: ReadonlyMap<string, TKnownSubgroup>): void {
+  const issues: TIssue[] = [];
+  for (const { input, index, key } of keyed) {
+    const stored = key === undefined ? undefined : known.get(key);
+    if (stored === undefined || stored.timestamp.getTime() === new Date(input.timestamp).getTime()) continue;
+    issues.push({
+      index,
+      path: `subgroups.${index}.key`,
+      message: `is already the key of the subgroup at ${stored.timestamp.toISOString()} (sequence ${stored.sequence}), not of one at ${input.timestamp}; a key names one reading`,
+    });
+  }
+  if (issues.length > 0) {
+    throw new AppError("conflict", `${issues.length} of ${keyed.length} subgroups carry the key of another stored reading; nothing was stored`, issues);
+  }
+}
+
 /** Keys bound per query: well under SQLite's limit on bound parameters. */
 const KEYS_PER_QUERY = 500;
 
@@ -439,15 +469,15 @@ async function storedKeys(
   transaction: Prisma.TransactionClient,
   characteristicId: number,
   sourceKeys: readonly (string | undefined)[],
-): Promise<Map<string, { id: number; sequence: number }>> {
+): Promise<Map<string, TKnownSubgroup>> {
   const keys = sourceKeys.filter((key) => key !== undefined);
-  const known = new Map<string, { id: number; sequence: number }>();
+  const known = new Map<string, TKnownSubgroup>();
   for (let first = 0; first < keys.length; first += KEYS_PER_QUERY) {
     const rows = await transaction.subgroup.findMany({
       where: { characteristicId, sourceKey: { in: keys.slice(first, first + KEYS_PER_QUERY) } },
-      select: { sourceKey: true, id: true, sequence: true },
+      select: { sourceKey: true, id: true, sequence: true, timestamp: true },
     });
-    for (const { sourceKey, id, sequence } of rows) known.set(sourceKey!, { id, sequence });
+    for (const { sourceKey, ...subgroup } of rows) known.set(sourceKey!, subgroup);
   }
   return known;
 }

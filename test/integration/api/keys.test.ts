@@ -111,6 +111,24 @@ describe("subgroups posted with the line system's keys", () => {
     expect(await rowCounts(fixture.db)).toEqual(counts);
   });
 
+  test("a key already stored for a reading at another time is a conflict, and nothing of the post is stored", async () => {
+    const counts = await rowCounts(fixture.db);
+    // The line system's counter started again: key 0021 now names a new reading, half an hour after the last.
+    const reused = await post([usual(24, "press4-0024"), usual(25, "press4-0021")]);
+    expect(reused.status).toBe(409);
+    expect(reused.json.error).toEqual({
+      code: "conflict",
+      message: "1 of 2 subgroups carry the key of another stored reading; nothing was stored",
+      issues: [
+        {
+          path: "subgroups.1.key",
+          message: `is already the key of the subgroup at ${minutesIn(21 * 30)} (sequence 21), not of one at ${minutesIn(25 * 30)}; a key names one reading`,
+        },
+      ],
+    });
+    expect(await rowCounts(fixture.db)).toEqual(counts);
+  });
+
   test("subgroups without keys are stored every time, as before keys existed", async () => {
     const subgroup = wallSubgroup(24, minutesIn(24 * 30));
     const first = await post([subgroup]);
