@@ -23,6 +23,14 @@ const post = async (subgroups: unknown[]) => {
 const usual = (index: number, key: string) => ({ ...wallSubgroup(index, minutesIn(index * 30)), key });
 /** Subgroup `index` far above the wall's limits (about 0.16 mm above a centre near 2.00 mm). */
 const high = (index: number, key: string) => ({ timestamp: minutesIn(index * 30), values: [2.15, 2.16, 2.17, 2.16, 2.15], key });
+/** Posts `subgroups`, expects `status` with `error`, and checks that nothing was written. */
+async function expectRefusal(subgroups: unknown[], status: number, error: { code: string; message: string; issues: { path: string; message: string }[] }) {
+  const counts = await rowCounts(fixture.db);
+  const answer = await post(subgroups);
+  expect(answer.status).toBe(status);
+  expect(answer.json.error).toEqual(error);
+  expect(await rowCounts(fixture.db)).toEqual(counts);
+}
 const signalRows = () => fixture.db.signal.findMany({ where: { characteristicId: fixture.wallId }, orderBy: { id: "asc" } });
 
 beforeAll(async () => {
@@ -95,10 +103,7 @@ describe("subgroups posted with the line system's keys", () => {
     expect(replay.status).toBe(200);
     expect(replay.json.outcomes).toEqual([{ key: "press4-0020", status: "already-present", id: expect.any(Number), sequence: 20 }]);
 
-    const counts = await rowCounts(fixture.db);
-    const late = await post([usual(20, "press4-0020"), { ...wallSubgroup(24, minutesIn(22 * 30)), key: "press4-0024" }]);
-    expect(late.status).toBe(422);
-    expect(late.json.error).toEqual({
+    await expectRefusal([usual(20, "press4-0020"), { ...wallSubgroup(24, minutesIn(22 * 30)), key: "press4-0024" }], 422, {
       code: "invalid-input",
       message: "Timestamps go backwards; nothing was stored",
       issues: [
@@ -108,15 +113,11 @@ describe("subgroups posted with the line system's keys", () => {
         },
       ],
     });
-    expect(await rowCounts(fixture.db)).toEqual(counts);
   });
 
   test("a key already stored for a reading at another time is a conflict, and nothing of the post is stored", async () => {
-    const counts = await rowCounts(fixture.db);
     // The line system's counter started again: key 0021 now names a new reading, half an hour after the last.
-    const reused = await post([usual(24, "press4-0024"), usual(25, "press4-0021")]);
-    expect(reused.status).toBe(409);
-    expect(reused.json.error).toEqual({
+    await expectRefusal([usual(24, "press4-0024"), usual(25, "press4-0021")], 409, {
       code: "conflict",
       message: "1 of 2 subgroups carry the key of another stored reading; nothing was stored",
       issues: [
@@ -126,7 +127,6 @@ describe("subgroups posted with the line system's keys", () => {
         },
       ],
     });
-    expect(await rowCounts(fixture.db)).toEqual(counts);
   });
 
   test("subgroups without keys are stored every time, as before keys existed", async () => {
