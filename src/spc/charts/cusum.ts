@@ -3,11 +3,11 @@
  * Crosier (1982), Technometrics 24, 199–205; Montgomery, Introduction to Statistical Quality Control, §9.1).
  *
  * On standardised values zᵢ = (x̄ᵢ − μ₀)/σ_x̄: C⁺ᵢ = max(0, zᵢ − k + C⁺ᵢ₋₁), C⁻ᵢ = max(0, −zᵢ − k + C⁻ᵢ₋₁),
- * C⁺₀ = C⁻₀ = 0 (no head start; a slice that starts inside a segment continues from the previous point's
- * sums); a signal when either exceeds h. Reported in the units of the data: both
+ * C⁺₀ = C⁻₀ = 0 (no head start); a signal when either exceeds h. Reported in the units of the data: both
  * statistics are multiplied by σ_x̄ (computed directly as max(0, ±(x̄ᵢ − μ₀) − kσ_x̄ + Cᵢ₋₁), which also
  * stays defined when σ_x̄ = 0), so both series `cusum-upper` and `cusum-lower` are ≥ 0 with centre 0,
- * UCL = h·σ_x̄ (the decision interval) and LCL = 0. Their sigma is NaN: zones do not apply.
+ * UCL = h·σ_x̄ (the decision interval) and LCL = 0. Their sigma is NaN: zones do not apply. A slice that
+ * starts inside a limit segment continues from the previous point's C⁺ and C⁻.
  *
  * Default design k = 0.5, h = 5 (common practice; Montgomery's recommendation, from memory), which has
  * a two-sided in-control ARL of about 465 (published-values §2b, computed).

@@ -3,12 +3,14 @@
  * geometric moving averages", Technometrics 1, 239–250; Montgomery, Introduction to Statistical Quality
  * Control, §9.2).
  *
- * zᵢ = λ·x̄ᵢ + (1 − λ)·zᵢ₋₁, z₀ = centre (a slice that starts inside a segment continues from the previous
- * point's zᵢ₋₁). The standard deviation of zᵢ (i = 1, 2, ... from the first
+ * zᵢ = λ·x̄ᵢ + (1 − λ)·zᵢ₋₁, z₀ = centre. The standard deviation of zᵢ (i = 1, 2, ... from the first
  * plotted point) is σᵢ = σ_x̄·√(λ/(2 − λ)·[1 − (1 − λ)^{2i}]), σ_x̄ = σ̂/√n, and the limits are
  * centre ± L·σᵢ: exact, time-varying limits that widen to the asymptotic centre ± L·σ_x̄·√(λ/(2 − λ)).
  * `asymptoticLimits` uses the asymptotic width from the first point, as the published ARL tables do
  * (Lucas & Saccucci (1990), Technometrics 32, 1–12).
+ *
+ * A slice that starts inside a limit segment continues from the previous point's zᵢ₋₁, with i counted
+ * from the segment's first point.
  *
  * Default design λ = 0.2, L = 3 (common practice). The series carries σᵢ, so warning limits are
  * centre ± 2σᵢ; zone rules do not apply by default (successive EWMA values are correlated).

@@ -15,10 +15,10 @@ import { cusumSeries, estimateCusum } from "./cusum";
 import { estimateEwma, ewmaSeries } from "./ewma";
 import { estimateIndividuals, individualsSeries } from "./individuals";
 import { estimateSubgroups, subgroupSeries } from "./subgroups";
-import { assertSliceStart, SEGMENT_START, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
+import { assertSliceStart, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
 
 export type { EstimateOptions } from "./chart-input";
-export { SEGMENT_START, SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
+export { SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
 export { zoneOf } from "./series";
 export { DEFAULT_EWMA_DESIGN } from "./ewma";
 export { DEFAULT_CUSUM_DESIGN } from "./cusum";
@@ -49,7 +49,7 @@ export function estimateParameters(chart: ChartType, data: ChartData, options: E
  * The one implementation of every chart's formulas: `evaluateChart` summarises measurements and calls it.
  * The plotted points may share the summaries' arrays; neither is written afterwards.
  */
-export function evaluateSummaries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart = SEGMENT_START): ChartResult {
+export function evaluateSummaries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart = { firstIndex: 0 }): ChartResult {
   assertSliceStart(start);
   return { chart: parameters.chart, parameters, statistics: evaluateStatistics(summaries, parameters, start) };
 }

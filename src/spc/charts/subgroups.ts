@@ -18,7 +18,7 @@ import { constantSigma, limitSeries } from "./series";
 import { summaryArray, type SubgroupSummaries } from "./summaries";
 import { meanSigmaOf, rangeSigma, standardDeviationSigma, usedMean } from "./within-sigma";
 
-export type SubgroupChart = "xbar-r" | "xbar-s";
+type SubgroupChart = "xbar-r" | "xbar-s";
 
 export function estimateSubgroups(chart: SubgroupChart, data: ChartData, options: EstimateOptions): ChartParameters {
   const variables = requireVariables(data, chart);

@@ -59,14 +59,12 @@ export interface SliceStart {
   readonly previous?: CarriedState;
 }
 
-export const SEGMENT_START: SliceStart = { firstIndex: 0 };
-
-/** Values each summary can take: the boundary of what a mean, spread, count or size can be. */
-const ACCEPTED: Readonly<Record<SummaryField, { readonly minimum: number; readonly inclusive: boolean; readonly name: string }>> = {
-  means: { minimum: -Infinity, inclusive: true, name: "mean" },
-  spreads: { minimum: 0, inclusive: true, name: "spread" },
-  counts: { minimum: 0, inclusive: true, name: "count" },
-  sizes: { minimum: 0, inclusive: false, name: "size" },
+/** What each summary can be: finite, and for spreads, counts and sizes not below a bound. */
+const ACCEPTED: Readonly<Record<SummaryField, { readonly name: string; readonly minimum: number; readonly inclusive: boolean; readonly requirement: string }>> = {
+  means: { name: "mean", minimum: -Infinity, inclusive: true, requirement: "a finite number" },
+  spreads: { name: "spread", minimum: 0, inclusive: true, requirement: "a finite number ≥ 0" },
+  counts: { name: "count", minimum: 0, inclusive: true, requirement: "a finite number ≥ 0" },
+  sizes: { name: "size", minimum: 0, inclusive: false, requirement: "a finite number > 0" },
 };
 
 /**
@@ -80,11 +78,11 @@ export function summaryArray(summaries: SubgroupSummaries, field: SummaryField, 
   if (length !== undefined && array.length !== length) {
     throw new SpcInputError(`the ${chart} chart was given ${array.length} subgroup ${field} for ${length} subgroups`);
   }
-  const { minimum, inclusive, name } = ACCEPTED[field];
+  const { name, minimum, inclusive, requirement } = ACCEPTED[field];
   for (let index = 0; index < array.length; index++) {
     const value = array[index]!;
     if (!Number.isFinite(value) || value < minimum || (!inclusive && value === minimum)) {
-      throw new SpcInputError(`subgroup ${index}: the ${name} ${value} is not a finite number${minimum === -Infinity ? "" : inclusive ? " ≥ 0" : " > 0"}`, index);
+      throw new SpcInputError(`subgroup ${index}: the ${name} ${value} is not ${requirement}`, index);
     }
   }
   return array;
