@@ -17,6 +17,7 @@ export const API_ERROR_CODES = [
   "conflict",
   "forbidden",
   "refused",
+  "busy",
   "invalid-json",
   "unsupported-media-type",
   "payload-too-large",

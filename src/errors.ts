@@ -6,7 +6,7 @@
 import type { z } from "zod";
 import { describeIssues } from "@/shared/intake";
 
-export const APP_ERROR_CODES = ["invalid-input", "not-found", "conflict", "forbidden", "refused"] as const;
+export const APP_ERROR_CODES = ["invalid-input", "not-found", "conflict", "forbidden", "refused", "busy"] as const;
 export type TAppErrorCode = (typeof APP_ERROR_CODES)[number];
 
 /** One problem with the input: a dotted field path ("subgroups.3.values") and what is wrong. */
@@ -57,6 +57,7 @@ const HTTP_STATUS: Record<TAppErrorCode, number> = {
   conflict: 409,
   forbidden: 403,
   refused: 422,
+  busy: 503,
 };
 
 /** The HTTP status code for an application error. */

@@ -22,12 +22,14 @@ const ERROR_DESCRIPTIONS: Record<number, string> = {
   415: 'The body was not sent as "application/json".',
   422: "The input is not valid (every problem named by its field path), or the request was refused.",
   500: "A bug: the details are in the server log.",
+  503: "The database stayed busy with another change (a large import) for 30 s; nothing was written. Send it again after Retry-After seconds.",
 };
 
 function buildDocument() {
   const registry = new OpenAPIRegistry();
   for (const route of API_ROUTES) {
-    const errorStatuses = [...new Set([403, ...route.errors, 500])].sort((a, b) => a - b);
+    // Any write may wait for the database's other writers and give up (503).
+    const errorStatuses = [...new Set([403, ...route.errors, 500, ...(route.method === "post" ? [503] : [])])].sort((a, b) => a - b);
     registry.registerPath({
       method: route.method,
       path: `${API_BASE_PATH}${route.path}`,

@@ -12,6 +12,7 @@ import type Database from "better-sqlite3";
 import type { PrismaClient } from "@/src/db/connect";
 import { getCharacteristic } from "@/src/characteristics/setup";
 import { storedTime } from "@/src/db/stored-time";
+import { enterWriteGate } from "@/src/db/write-gate";
 import { AppError, parseInput } from "@/src/errors";
 import type { CsvProblem } from "@/src/io/csv/errors";
 import type { CsvSeparator } from "@/src/io/csv/read-table";
@@ -75,9 +76,17 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
   const { chartType, subgroupSize } = characteristic;
   const createdAt = storedTime(request.now.toISOString());
 
+  // The process's other writers wait at the gate until this transaction ends (src/db/write-gate.ts);
+  // writers in other processes meet the busy timeout.
+  let leaveGate: (() => void) | undefined = await enterWriteGate();
+  const endTurn = () => {
+    leaveGate?.();
+    leaveGate = undefined;
+  };
   try {
     database.exec("BEGIN IMMEDIATE");
   } catch (error) {
+    endTurn();
     if (isBusy(error)) throw new AppError("conflict", "Another import or write to this database is in progress; try again when it has finished.");
     throw error;
   }
@@ -178,11 +187,13 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
     };
     if (!commit) {
       database.exec("ROLLBACK");
+      endTurn();
       return result;
     }
     completeBatch(database, batchId, summary.fileHash, { rowsRead, subgroupsAdded, subgroupsAlreadyPresent, rowsRejected });
     if (rejected.length > 0) await writeRejectedRows(database.name, batchId, rejectedRowsCsv(header, separator ?? ",", rejected));
     database.exec("COMMIT");
+    endTurn();
     if (subgroupsAdded === 0) return result;
     await reevaluateSignals(db, characteristic.id, {
       trigger: "import",
@@ -194,5 +205,6 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
     return { ...result, signalsRaised };
   } finally {
     if (database.inTransaction) database.exec("ROLLBACK");
+    endTurn();
   }
 }
