@@ -60,7 +60,7 @@ export function attributesSeries(chart: AttributesChart, summaries: SubgroupSumm
   switch (chart) {
     case "p":
     case "u": {
-      const sizes = summaryArray(summaries, "sizes", chart, count);
+      const sizes = summaryArray(summaries, "sizes", chart);
       if (chart === "p") assertDefectivesWithinSizes(counts, sizes);
       const points = new Float64Array(count);
       const sigma = new Float64Array(count);
@@ -80,7 +80,7 @@ export function attributesSeries(chart: AttributesChart, summaries: SubgroupSumm
       });
     }
     case "np": {
-      const sizes = summaryArray(summaries, "sizes", chart, count);
+      const sizes = summaryArray(summaries, "sizes", chart);
       assertDefectivesWithinSizes(counts, sizes);
       const size = commonSampleSize(sizes, parameters.subgroupSize);
       return limitSeries({

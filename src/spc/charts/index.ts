@@ -15,7 +15,7 @@ import { cusumSeries, estimateCusum } from "./cusum";
 import { estimateEwma, ewmaSeries } from "./ewma";
 import { estimateIndividuals, individualsSeries } from "./individuals";
 import { estimateSubgroups, subgroupSeries } from "./subgroups";
-import { assertSliceStart, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
+import { assertSliceStart, assertSummaries, summariesOf, type SliceStart, type SubgroupSummaries } from "./summaries";
 
 export type { EstimateOptions } from "./chart-input";
 export { SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
@@ -51,6 +51,7 @@ export function estimateParameters(chart: ChartType, data: ChartData, options: E
  */
 export function evaluateSummaries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart = { firstIndex: 0 }): ChartResult {
   assertSliceStart(start);
+  assertSummaries(summaries, parameters.chart);
   return { chart: parameters.chart, parameters, statistics: evaluateStatistics(summaries, parameters, start) };
 }
 
@@ -76,5 +77,7 @@ function evaluateStatistics(summaries: SubgroupSummaries, parameters: ChartParam
 
 /** The chart's statistics for measurements or counts, whole: their summaries evaluated from the segment's start. */
 export function evaluateChart(data: ChartData, parameters: ChartParameters): ChartResult {
-  return evaluateSummaries(summariesOf(data, parameters), parameters);
+  // Chart data is validated when it is built, so its summaries skip evaluateSummaries' second check.
+  const statistics = evaluateStatistics(summariesOf(data, parameters), parameters, { firstIndex: 0 });
+  return { chart: parameters.chart, parameters, statistics };
 }

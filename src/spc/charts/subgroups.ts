@@ -43,7 +43,7 @@ export function subgroupSeries(chart: SubgroupChart, summaries: SubgroupSummarie
   const { d2, d3, c4 } = controlConstants(parameters.subgroupSize);
   const { sigma } = parameters;
   const means = summaryArray(summaries, "means", chart);
-  const spreads = summaryArray(summaries, "spreads", chart, means.length);
+  const spreads = summaryArray(summaries, "spreads", chart);
   const count = means.length;
   const mean = limitSeries({
     key: "xbar",

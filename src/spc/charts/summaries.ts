@@ -68,23 +68,32 @@ const ACCEPTED: Readonly<Record<SummaryField, { readonly name: string; readonly 
 };
 
 /**
- * The summary `field` for `chart`, checked: present, `length` entries long when a length is given, every
- * entry finite and within its range (spreads and counts ≥ 0, sizes > 0). Throws SpcInputError naming
- * the first bad subgroup.
+ * Throws SpcInputError unless every summary `chart` reads is there, all of one length, every entry finite
+ * and within its range (spreads and counts ≥ 0, sizes > 0), naming the first bad subgroup. Summaries that
+ * `summariesOf` made from validated chart data need no such check.
  */
-export function summaryArray(summaries: SubgroupSummaries, field: SummaryField, chart: ChartType, length?: number): Float64Array {
-  const array = summaries[field];
-  if (array === undefined) throw new SpcInputError(`the ${chart} chart needs the subgroup ${field}`);
-  if (length !== undefined && array.length !== length) {
-    throw new SpcInputError(`the ${chart} chart was given ${array.length} subgroup ${field} for ${length} subgroups`);
-  }
-  const { name, minimum, inclusive, requirement } = ACCEPTED[field];
-  for (let index = 0; index < array.length; index++) {
-    const value = array[index]!;
-    if (!Number.isFinite(value) || value < minimum || (!inclusive && value === minimum)) {
-      throw new SpcInputError(`subgroup ${index}: the ${name} ${value} is not ${requirement}`, index);
+export function assertSummaries(summaries: SubgroupSummaries, chart: ChartType): void {
+  const fields = SUMMARY_FIELDS[chart];
+  const length = summaries[fields[0]!]?.length;
+  for (const field of fields) {
+    const array = summaryArray(summaries, field, chart);
+    if (array.length !== length) {
+      throw new SpcInputError(`the ${chart} chart was given ${array.length} subgroup ${field} for ${length} subgroups`);
+    }
+    const { name, minimum, inclusive, requirement } = ACCEPTED[field];
+    for (let index = 0; index < array.length; index++) {
+      const value = array[index]!;
+      if (!Number.isFinite(value) || value < minimum || (!inclusive && value === minimum)) {
+        throw new SpcInputError(`subgroup ${index}: the ${name} ${value} is not ${requirement}`, index);
+      }
     }
   }
+}
+
+/** The summary `field`, or an SpcInputError saying that `chart` needs it. */
+export function summaryArray(summaries: SubgroupSummaries, field: SummaryField, chart: ChartType): Float64Array {
+  const array = summaries[field];
+  if (array === undefined) throw new SpcInputError(`the ${chart} chart needs the subgroup ${field}`);
   return array;
 }
 
