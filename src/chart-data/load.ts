@@ -22,6 +22,7 @@ import { chartTypeOf } from "@/src/characteristics/setup";
 import { AppError } from "@/src/errors";
 import { chartParametersOf, limitSegments, segmentAt, summarySeries, type TSegment, type TSummary } from "@/src/limits";
 import type { TLimitSetParameters } from "@/src/limits/parameters";
+import { movingRanges, rates, warningLimitsAt } from "@/src/spc/charts";
 import { RULE_DEFINITIONS } from "@/src/spc/rules";
 import type { StatisticSeries } from "@/src/spc/types";
 import { cachedColumn, type TColumn } from "./column-cache";
@@ -120,13 +121,7 @@ function readStatistics(
       // One point before the range gives the first moving range; a segment's first moving range is undefined.
       const before = from > history.first ? cachedColumn(database, "mean", characteristicId, history, { from: from - 1, to: from - 1 })[0]! : Number.NaN;
       const values = column("mean");
-      // A plain loop: this runs over up to a million values at every request.
-      const ranges = new Float64Array(values.length);
-      let previous = before;
-      for (let index = 0; index < values.length; index++) {
-        ranges[index] = Math.abs(values[index]! - previous);
-        previous = values[index]!;
-      }
+      const ranges = movingRanges(values, before);
       for (const start of segmentStarts) if (start >= from && start - from < ranges.length) ranges[start - from] = Number.NaN;
       return [values, ranges];
     }
@@ -135,9 +130,7 @@ function readStatistics(
       return [column("mean"), column("spread")];
     case "p":
     case "u": {
-      const counts = column("count");
-      const sizes = column("size");
-      return [counts.map((count, index) => count / sizes[index]!)];
+      return [rates(column("count"), column("size"))];
     }
     case "np":
     case "c":
@@ -153,15 +146,13 @@ function limitsAt(series: StatisticSeries): TPointLimits {
   const center = series.center;
   const ucl = series.ucl[0]!;
   const lcl = series.lcl[0]!;
-  const sigma = series.sigma[0]!;
-  // Warning limits at 2σ, inside the action limits where those are truncated at a floor or ceiling.
-  const warning = Number.isNaN(sigma) ? null : 2 * sigma;
+  const warning = warningLimitsAt(series, 0);
   return {
     center,
     ucl,
     lcl,
-    upperWarning: warning === null ? null : Math.min(ucl, center + warning),
-    lowerWarning: warning === null ? null : Math.max(lcl, center - warning),
+    upperWarning: Number.isNaN(warning.upper) ? null : warning.upper,
+    lowerWarning: Number.isNaN(warning.lower) ? null : warning.lower,
   };
 }
 

@@ -14,7 +14,7 @@
 import { type TAnalyzeReport, type TCapabilityReport, type TPatternReport, type TStatisticReport } from "../../shared/analyze-report";
 import { RULE_IDS, VARIABLES_CHART_TYPES, type RuleId } from "../../shared/constants";
 import { computeCapability } from "./capability";
-import { estimateParameters, evaluateChart, zoneOf } from "./charts";
+import { estimateParameters, evaluateChart, warningLimitsAt, zoneOf } from "./charts";
 import { subgroupCount } from "./data";
 import { patternReport } from "./patterns/report";
 import { evaluateRules, resolveRuleSet, type SkippedRule } from "./rules";
@@ -24,7 +24,6 @@ import { SpcInputError, type ChartData, type ChartParameters, type ChartType, ty
 export const DEFAULT_RULE_SET = "nelson";
 /** Fewer baseline subgroups than this earn a note (common practice asks for 20 to 25). */
 export const RECOMMENDED_BASELINE_SUBGROUPS = 20;
-const WARNING_WIDTH = 2;
 
 export interface AnalyzeOptions {
   /** Rule-set specification: "nelson", "we" or a list of rule ids (see resolveRuleSet). */
@@ -122,15 +121,13 @@ function compactLimit(values: ArrayLike<number>): number | null | (number | null
 }
 
 function statisticReport(series: StatisticSeries): TStatisticReport {
-  const { points, center, sigma, ucl, floor } = series;
+  const { points, center, sigma, ucl } = series;
   const upperWarning = new Float64Array(points.length);
   const lowerWarning = new Float64Array(points.length);
   for (let index = 0; index < points.length; index++) {
-    const upper = center + WARNING_WIDTH * sigma[index]!;
-    const lower = center - WARNING_WIDTH * sigma[index]!;
-    // A warning limit beyond a truncated action limit (p near 1) or below the floor does not exist.
-    upperWarning[index] = upper <= ucl[index]! ? upper : NaN;
-    lowerWarning[index] = lower >= floor ? lower : NaN;
+    const warning = warningLimitsAt(series, index);
+    upperWarning[index] = warning.upper;
+    lowerWarning[index] = warning.lower;
   }
   return {
     center,

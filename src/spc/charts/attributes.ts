@@ -62,13 +62,10 @@ export function attributesSeries(chart: AttributesChart, summaries: SubgroupSumm
     case "u": {
       const sizes = summaryArray(summaries, "sizes", chart);
       if (chart === "p") assertDefectivesWithinSizes(counts, sizes);
-      const points = new Float64Array(count);
+      const points = rates(counts, sizes);
       const sigma = new Float64Array(count);
       const variance = chart === "p" ? rate * (1 - rate) : rate;
-      for (let index = 0; index < count; index++) {
-        points[index] = counts[index]! / sizes[index]!;
-        sigma[index] = Math.sqrt(variance / sizes[index]!);
-      }
+      for (let index = 0; index < count; index++) sigma[index] = Math.sqrt(variance / sizes[index]!);
       return limitSeries({
         key: chart,
         points,
@@ -103,4 +100,11 @@ export function attributesSeries(chart: AttributesChart, summaries: SubgroupSumm
         zoneRulesByDefault: true,
       });
   }
+}
+
+/** The plotted value of p and u charts: defectives (p) or defects (u) per unit inspected, countᵢ / sizeᵢ. */
+export function rates(counts: Float64Array, sizes: Float64Array): Float64Array {
+  const points = new Float64Array(counts.length);
+  for (let index = 0; index < counts.length; index++) points[index] = counts[index]! / sizes[index]!;
+  return points;
 }

@@ -19,7 +19,9 @@ import { assertSliceStart, assertSummaries, summariesOf, type SliceStart, type S
 
 export type { EstimateOptions } from "./chart-input";
 export { SUMMARY_FIELDS, type CarriedState, type SliceStart, type SubgroupSummaries, type SummaryField } from "./summaries";
-export { zoneOf } from "./series";
+export { warningLimitsAt, zoneOf } from "./series";
+export { movingRanges } from "./individuals";
+export { rates } from "./attributes";
 export { DEFAULT_EWMA_DESIGN } from "./ewma";
 export { DEFAULT_CUSUM_DESIGN } from "./cusum";
 export { MINIMUM_BASELINE_SUBGROUPS } from "./baseline";

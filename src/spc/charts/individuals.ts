@@ -36,13 +36,7 @@ export function estimateIndividuals(data: ChartData, options: EstimateOptions): 
 export function individualsSeries(summaries: SubgroupSummaries, parameters: ChartParameters, start: SliceStart): StatisticSeries[] {
   const values = summaryArray(summaries, "means", "imr");
   const { d2, d3 } = controlConstants(2);
-  const movingRanges = new Float64Array(values.length);
-  let before = carriedState(start, "mean", "imr", NaN);
-  for (let index = 0; index < values.length; index++) {
-    const value = values[index]!;
-    movingRanges[index] = Math.abs(value - before);
-    before = value;
-  }
+  const ranges = movingRanges(values, carriedState(start, "mean", "imr", NaN));
   return [
     limitSeries({
       key: "x",
@@ -54,11 +48,23 @@ export function individualsSeries(summaries: SubgroupSummaries, parameters: Char
     }),
     limitSeries({
       key: "mr",
-      points: movingRanges,
+      points: ranges,
       center: d2 * parameters.sigma,
       sigma: constantSigma(values.length, d3 * parameters.sigma),
       floor: 0,
       zoneRulesByDefault: false,
     }),
   ];
+}
+
+/** Moving ranges MRᵢ = |xᵢ − xᵢ₋₁|, the first against `before` (NaN: the first has no moving range). */
+export function movingRanges(values: Float64Array, before: number): Float64Array {
+  const ranges = new Float64Array(values.length);
+  let previous = before;
+  for (let index = 0; index < values.length; index++) {
+    const value = values[index]!;
+    ranges[index] = Math.abs(value - previous);
+    previous = value;
+  }
+  return ranges;
 }

@@ -11,6 +11,7 @@
 import type { StatisticKey, StatisticSeries } from "../types";
 
 export const ACTION_LIMIT_WIDTH = 3;
+export const WARNING_LIMIT_WIDTH = 2;
 
 export interface SeriesShape {
   readonly key: StatisticKey;
@@ -77,4 +78,16 @@ export function zoneOf(value: number, center: number, sigma: number): number {
     }
   }
   return deviation > 0 ? zone : -zone;
+}
+
+/**
+ * Warning limits CL ± 2σ at point `index`. A warning limit that would lie beyond the statistic's range
+ * (above a p chart's ceiling of 1, below its floor) does not exist and is NaN, rather than drawn on top of
+ * the truncated action limit; both are NaN where the series has no σ (CUSUM).
+ */
+export function warningLimitsAt(series: StatisticSeries, index: number): { readonly upper: number; readonly lower: number } {
+  const { center, sigma, ucl, floor } = series;
+  const upper = center + WARNING_LIMIT_WIDTH * sigma[index]!;
+  const lower = center - WARNING_LIMIT_WIDTH * sigma[index]!;
+  return { upper: upper <= ucl[index]! ? upper : NaN, lower: lower >= floor ? lower : NaN };
 }
