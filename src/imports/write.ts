@@ -51,10 +51,10 @@ export const ROWS_PER_STATEMENT = 64;
  * `INSERT INTO table (columns) VALUES (?, ...), ... (rows times)`. Only the project's own constant table and
  * column names go into the text; every value is a placeholder.
  */
-export function prepareInsert(database: Database.Database, table: string, columns: readonly string[], rows: number, returning = "") {
+export function prepareInsert(database: Database.Database, table: string, columns: readonly string[], rows: number) {
   const tuple = `(${columns.map(() => "?").join(", ")})`;
   const names = columns.map((column) => `"${column}"`).join(", ");
-  return database.prepare(`INSERT INTO "${table}" (${names}) VALUES ${Array.from({ length: rows }, () => tuple).join(", ")}${returning}`);
+  return database.prepare(`INSERT INTO "${table}" (${names}) VALUES ${Array.from({ length: rows }, () => tuple).join(", ")}`);
 }
 
 /** Three-column rows (Measurement, SubgroupTag) gathered and written ROWS_PER_STATEMENT at a time. */
