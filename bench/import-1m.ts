@@ -7,8 +7,8 @@
  * - the bare insert the issue names: the same Subgroup and Measurement rows (read back from the first
  *   import's database, batch column included), one prepared single-row statement per row, in one
  *   transaction, nothing else;
- * - for comparison only, the same bare insert with 64-row statements (`ROWS_PER_STATEMENT`), the way the
- *   import writes: how much of the import's margin comes from that choice.
+ * - for comparison only, the same bare insert with 64-row statements (`ROWS_PER_STATEMENT`) and explicit
+ *   ids, the way the import writes: how much of the import's margin comes from those choices.
  *
  * How it is measured:
  * - Each side runs ROUNDS times (3 by default), alternating, each into its own copy of one migrated
