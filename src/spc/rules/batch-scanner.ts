@@ -98,89 +98,12 @@ function stretchStartAt(points: Float64Array, index: number): number {
   return 0;
 }
 
-/** Positions of the condition words of one 32-point word in the array `exactWord` fills. */
-const ABOVE = 0;
-const BELOW = 1;
-const BEYOND_ONE_UP = 2;
-const BEYOND_ONE_DOWN = 3;
-const BEYOND_TWO_UP = 4;
-const BEYOND_TWO_DOWN = 5;
-const LIMIT_UP = 6;
-const LIMIT_DOWN = 7;
-const INCREASE = 8;
-const DECREASE = 9;
-const INVALID = 10;
-const NOT_WITHIN = 11;
-const CONDITIONS = 12;
+/** Positions of the beyond-the-limits words in the array `limitWords` fills. */
+const LIMIT_UP = 0;
+const LIMIT_DOWN = 1;
 
 /**
- * The condition words of the points base .. base + count − 1 by exact comparisons, point by point, with
- * each point's own sigma, as the scanner compares (same expressions, so the same doubles), into
- * `conditions` (positions above); `previousValue` is the point before `base` (NaN if none). False when a
- * point is infinite or a sigma negative (the scanner then throws).
- */
-function exactWord(
-  arrays: ScanArrays,
-  base: number,
-  count: number,
-  center: number,
-  floor: number,
-  previousValue: number,
-  conditions: Int32Array,
-): boolean {
-  const { points, ucl, lcl, sigma } = arrays;
-  let above = 0;
-  let below = 0;
-  let beyondOneUp = 0;
-  let beyondOneDown = 0;
-  let beyondTwoUp = 0;
-  let beyondTwoDown = 0;
-  let limitUp = 0;
-  let limitDown = 0;
-  let increase = 0;
-  let decrease = 0;
-  let invalid = 0;
-  let notWithin = 0;
-  for (let bit = 0; bit < count; bit++) {
-    const value = points[base + bit]!;
-    const deviation = sigma[base + bit]!;
-    if (deviation < 0 || (value - value !== 0 && value === value)) return false;
-    // A NaN sigma makes every comparison with a boundary false; a lower boundary under the floor is
-    // never passed, and a point below the centre there is not within 1σ.
-    const lowerOne = center - deviation;
-    const lowerTwo = center - 2 * deviation;
-    const lowerOneDefined = +(lowerOne >= floor);
-    above |= +(value > center) << bit;
-    below |= +(value < center) << bit;
-    beyondOneUp |= +(value > center + deviation) << bit;
-    beyondTwoUp |= +(value > center + 2 * deviation) << bit;
-    beyondOneDown |= (+(value < lowerOne) & lowerOneDefined) << bit;
-    beyondTwoDown |= (+(value < lowerTwo) & +(lowerTwo >= floor)) << bit;
-    notWithin |= (+!(deviation >= 0) | (+(value < center) & (lowerOneDefined ^ 1))) << bit;
-    limitUp |= +(value > ucl[base + bit]!) << bit;
-    limitDown |= +(value < lcl[base + bit]!) << bit;
-    increase |= +(value > previousValue) << bit;
-    decrease |= +(value < previousValue) << bit;
-    invalid |= +(value !== value) << bit;
-    previousValue = value;
-  }
-  conditions[ABOVE] = above;
-  conditions[BELOW] = below;
-  conditions[BEYOND_ONE_UP] = beyondOneUp;
-  conditions[BEYOND_ONE_DOWN] = beyondOneDown;
-  conditions[BEYOND_TWO_UP] = beyondTwoUp;
-  conditions[BEYOND_TWO_DOWN] = beyondTwoDown;
-  conditions[LIMIT_UP] = limitUp;
-  conditions[LIMIT_DOWN] = limitDown;
-  conditions[INCREASE] = increase;
-  conditions[DECREASE] = decrease;
-  conditions[INVALID] = invalid;
-  conditions[NOT_WITHIN] = notWithin;
-  return true;
-}
-
-/**
- * The beyond-the-limits words of the points base .. base + count − 1 into `conditions` (LIMIT_UP,
+ * The beyond-the-limits words of the points base .. base + count − 1 into `limits` (LIMIT_UP,
  * LIMIT_DOWN), each point compared with its own limits, or with `upperLimit` and `lowerLimit` for all
  * when `uniformLimits`. False when a point's sigma is not `deviation` (the word's zones by arithmetic,
  * made with that sigma, are then wrong; NaN never matches); a flagged series is not checked.
@@ -193,7 +116,7 @@ function limitWords(
   upperLimit: number,
   lowerLimit: number,
   deviation: number,
-  conditions: Int32Array,
+  limits: Int32Array,
 ): boolean {
   const { points, ucl, lcl, sigma } = arrays;
   let limitUp = 0;
@@ -206,8 +129,8 @@ function limitWords(
     limitDown |= +(value < (uniformLimits ? lowerLimit : lcl[position]!)) << bit;
     differs |= +(!uniformLimits && sigma[position]! !== deviation);
   }
-  conditions[LIMIT_UP] = limitUp;
-  conditions[LIMIT_DOWN] = limitDown;
+  limits[LIMIT_UP] = limitUp;
+  limits[LIMIT_DOWN] = limitDown;
   return differs === 0;
 }
 
@@ -253,7 +176,7 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
   // (0 .. 7) is the zone. Its three bits go into three words, from which the six zone conditions follow
   // by bitwise operations per word. t carries rounding errors, and so do the boundaries the scanner
   // compares with; both are bounded by `margin` (a few units in the last place of the largest magnitude
-  // involved, in sigmas). A word is redone point by point by exact comparisons (exactWord) when it holds
+  // involved, in sigmas). A word is redone point by point by exact comparisons when it holds
   // a point whose t lies within `margin` of an integer (a boundary, or center ± 3σ) or outside 0 .. 8
   // (beyond 4σ, infinite, NaN), a step that is zero (a tie) or NaN (after a missing point, or the first
   // point), or a sigma of its own (limitWords, not checked on a series flagged uniformLimits): rare
@@ -267,7 +190,7 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
   const nearBoundary = 0.5 - margin;
   const lowerOneMask = center - sigma0 >= floor ? -1 : 0;
   const lowerTwoMask = center - 2 * sigma0 >= floor ? -1 : 0;
-  const conditions = new Int32Array(CONDITIONS);
+  const limits = new Int32Array(2);
   // Where the series says its limits are uniform (the charts module sets it when they are the same by
   // construction), the first point's limits serve every point, and when they are center ± 3σ exactly
   // (as limitSeries computes them) the zone says it too: zone 7 is beyond the upper limit, zone 0 below
@@ -298,10 +221,10 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
     let notWithin = 0;
     const previousBefore = previousValue;
     let exact = +!arithmeticZones;
+    let low = 0;
+    let middle = 0;
+    let high = 0;
     if (arithmeticZones) {
-      let low = 0;
-      let middle = 0;
-      let high = 0;
       for (let bit = 0; bit < count; bit++) {
         const position = base + bit;
         const value = points[position]!;
@@ -320,12 +243,14 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
       if (limitsAreZones) {
         limitUp = high & middle & low;
         limitDown = present & ~(high | middle | low);
-      } else if (limitWords(arrays, base, count, uniformLimits, upperLimit, lowerLimit, sigma0, conditions)) {
-        limitUp = conditions[LIMIT_UP]!;
-        limitDown = conditions[LIMIT_DOWN]!;
+      } else if (limitWords(arrays, base, count, uniformLimits, upperLimit, lowerLimit, sigma0, limits)) {
+        limitUp = limits[LIMIT_UP]!;
+        limitDown = limits[LIMIT_DOWN]!;
       } else {
         exact = 1;
       }
+    }
+    if (exact === 0) {
       // Zones 4 .. 7 (binary 1xx) are above the centre, 5 .. 7 beyond +1σ, 6 and 7 beyond +2σ; zones
       // 0 .. 2 are beyond −1σ, 0 and 1 beyond −2σ (where those boundaries are above the floor).
       above = high;
@@ -338,22 +263,38 @@ export function scanWords(arrays: ScanArrays, rules: number, center: number, flo
       // Every step of the word is a number and not zero (else the word is redone): a step that is not
       // an increase is a decrease.
       decrease = present & ~increase;
-    }
-    if (exact !== 0) {
-      if (!exactWord(arrays, base, count, center, floor, previousBefore, conditions)) return false;
-      above = conditions[ABOVE]!;
-      below = conditions[BELOW]!;
-      beyondOneUp = conditions[BEYOND_ONE_UP]!;
-      beyondOneDown = conditions[BEYOND_ONE_DOWN]!;
-      beyondTwoUp = conditions[BEYOND_TWO_UP]!;
-      beyondTwoDown = conditions[BEYOND_TWO_DOWN]!;
-      limitUp = conditions[LIMIT_UP]!;
-      limitDown = conditions[LIMIT_DOWN]!;
-      increase = conditions[INCREASE]!;
-      decrease = conditions[DECREASE]!;
-      invalid = conditions[INVALID]!;
-      notWithin = conditions[NOT_WITHIN]!;
-      previousValue = points[base + count - 1]!;
+    } else {
+      // The word redone point by point by exact comparisons, with each point's own sigma, as the scanner
+      // compares (same expressions, so the same doubles). The words the arithmetic pass filled start over.
+      limitUp = 0;
+      limitDown = 0;
+      increase = 0;
+      previousValue = previousBefore;
+      for (let bit = 0; bit < count; bit++) {
+        const position = base + bit;
+        const value = points[position]!;
+        const deviation = sigma[position]!;
+        // An infinite point or a negative sigma: the scanner decides (and throws).
+        if (deviation < 0 || (value - value !== 0 && value === value)) return false;
+        // A NaN sigma makes every comparison with a boundary false; a lower boundary under the floor is
+        // never passed, and a point below the centre there is not within 1σ.
+        const lowerOne = center - deviation;
+        const lowerTwo = center - 2 * deviation;
+        const lowerOneDefined = +(lowerOne >= floor);
+        above |= +(value > center) << bit;
+        below |= +(value < center) << bit;
+        beyondOneUp |= +(value > center + deviation) << bit;
+        beyondTwoUp |= +(value > center + 2 * deviation) << bit;
+        beyondOneDown |= (+(value < lowerOne) & lowerOneDefined) << bit;
+        beyondTwoDown |= (+(value < lowerTwo) & +(lowerTwo >= floor)) << bit;
+        notWithin |= (+!(deviation >= 0) | (+(value < center) & (lowerOneDefined ^ 1))) << bit;
+        limitUp |= +(value > ucl[position]!) << bit;
+        limitDown |= +(value < lcl[position]!) << bit;
+        increase |= +(value > previousValue) << bit;
+        decrease |= +(value < previousValue) << bit;
+        invalid |= +(value !== value) << bit;
+        previousValue = value;
+      }
     }
     const valid = present & ~invalid;
 
