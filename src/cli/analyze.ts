@@ -5,41 +5,37 @@
  */
 import { z } from "zod";
 import { CHART_TYPES, type ChartType } from "../../shared/constants";
-import { DECIMAL_NUMBER, readChartCsvFile, SUBGROUP_SIZE_RANGE } from "../io/csv";
-import { analyze, DEFAULT_RULE_SET, type AnalyzeOptions } from "../spc/analyze";
+import { readChartCsvFile } from "../io/csv";
+import { analyze, type AnalyzeOptions } from "../spc/analyze";
 import { DEFAULT_CUSUM_DESIGN, DEFAULT_EWMA_DESIGN } from "../spc/charts";
 import { formatAnalyzeText } from "./analyze-text";
-import { UsageError, type Command, type ParsedArguments } from "./command";
+import { CHART_FILE_OPTION_SCHEMAS, CHART_FILE_OPTIONS, chartFileArgument, decimalOption, refuseCrossedSpecification, valueOptions, wholeNumberOption } from "./chart-file";
+import type { Command, ParsedArguments } from "./command";
 
 const SUBGROUP_CHARTS: readonly ChartType[] = ["xbar-r", "xbar-s"];
 const CAPABILITY_CHARTS: readonly ChartType[] = ["imr", "xbar-r", "xbar-s", "ewma", "cusum"];
 
-const number = z.string().regex(DECIMAL_NUMBER, "must be a number, e.g. 1.5").transform(Number);
-const wholeNumber = z.string().regex(/^\d+$/, "must be a whole number").transform(Number);
-
 const ZAnalyzeCommandOptions = z
   .object({
-    chart: z.enum(CHART_TYPES, {
-      error: (issue) => (issue.input === undefined ? "is required" : `must be one of ${CHART_TYPES.join(", ")}`),
-    }),
-    "subgroup-size": wholeNumber.pipe(z.number().min(SUBGROUP_SIZE_RANGE.min).max(SUBGROUP_SIZE_RANGE.max)).optional(),
-    rules: z.string().default(DEFAULT_RULE_SET),
+    chart: CHART_FILE_OPTION_SCHEMAS.chart,
+    "subgroup-size": CHART_FILE_OPTION_SCHEMAS["subgroup-size"],
+    rules: CHART_FILE_OPTION_SCHEMAS.rules,
     "force-zone-rules": z.boolean().default(false),
-    baseline: wholeNumber.optional(),
+    baseline: wholeNumberOption.optional(),
     exclude: z
       .string()
       .transform((list) => list.split(",").map((item) => item.trim()))
       .pipe(z.array(z.string().regex(/^\d+$/, "must be a comma-separated list of 0-based subgroup numbers, e.g. 3,17").transform(Number)))
       .optional(),
-    lsl: number.optional(),
-    usl: number.optional(),
-    confidence: number.pipe(z.number().gt(0).lt(1)).optional(),
-    target: number.optional(),
-    lambda: number.pipe(z.number().gt(0).max(1)).optional(),
-    L: number.pipe(z.number().positive()).optional(),
-    k: number.pipe(z.number().nonnegative()).optional(),
-    h: number.pipe(z.number().positive()).optional(),
-    format: z.enum(["text", "json"], { error: "must be text or json" }).default("text"),
+    lsl: CHART_FILE_OPTION_SCHEMAS.lsl,
+    usl: CHART_FILE_OPTION_SCHEMAS.usl,
+    confidence: decimalOption.pipe(z.number().gt(0).lt(1)).optional(),
+    target: CHART_FILE_OPTION_SCHEMAS.target,
+    lambda: decimalOption.pipe(z.number().gt(0).max(1)).optional(),
+    L: decimalOption.pipe(z.number().positive()).optional(),
+    k: decimalOption.pipe(z.number().nonnegative()).optional(),
+    h: decimalOption.pipe(z.number().positive()).optional(),
+    format: CHART_FILE_OPTION_SCHEMAS.format,
   })
   .superRefine((options, context) => {
     const refuse = (path: string, message: string) => context.addIssue({ code: "custom", path: [path], message });
@@ -51,7 +47,7 @@ const ZAnalyzeCommandOptions = z
     if ((options.lsl !== undefined || options.usl !== undefined) && !CAPABILITY_CHARTS.includes(chart)) {
       refuse(options.lsl === undefined ? "usl" : "lsl", "capability applies to charts of measured values (imr, xbar-r, xbar-s, ewma, cusum)");
     }
-    if (options.lsl !== undefined && options.usl !== undefined && options.lsl >= options.usl) refuse("usl", "must be greater than --lsl");
+    refuseCrossedSpecification(options, context);
   });
 
 type TAnalyzeCommandOptions = z.infer<typeof ZAnalyzeCommandOptions>;
@@ -75,9 +71,7 @@ function engineOptions(options: TAnalyzeCommandOptions, labels: readonly string[
 }
 
 async function run(parsed: ParsedArguments, output: { stdout: (text: string) => void }): Promise<number> {
-  const [file, ...extra] = parsed.positionals;
-  if (file === undefined) throw new UsageError("analyze needs a CSV file: analyze FILE.csv --chart TYPE");
-  if (extra.length > 0) throw new UsageError(`analyze reads one file; unexpected argument "${extra[0]}"`);
+  const file = chartFileArgument(parsed, "analyze", "analyze FILE.csv --chart TYPE");
   const options = ZAnalyzeCommandOptions.parse(parsed.values);
   const input = await readChartCsvFile(file, options.chart, { subgroupSize: options["subgroup-size"] });
   const report = analyze(options.chart, input.data, engineOptions(options, input.labels));
@@ -120,22 +114,6 @@ export const analyzeCommand: Command = {
   name: "analyze",
   summary: "chart a CSV file: limits, run-rule signals, capability",
   help,
-  options: {
-    chart: { type: "string" },
-    "subgroup-size": { type: "string" },
-    rules: { type: "string" },
-    "force-zone-rules": { type: "boolean" },
-    baseline: { type: "string" },
-    exclude: { type: "string" },
-    lsl: { type: "string" },
-    usl: { type: "string" },
-    confidence: { type: "string" },
-    target: { type: "string" },
-    lambda: { type: "string" },
-    L: { type: "string" },
-    k: { type: "string" },
-    h: { type: "string" },
-    format: { type: "string" },
-  },
+  options: { ...CHART_FILE_OPTIONS, ...valueOptions("baseline", "exclude", "confidence", "lambda", "L", "k", "h"), "force-zone-rules": { type: "boolean" } },
   run,
 };

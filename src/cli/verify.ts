@@ -5,36 +5,30 @@
  */
 import { z } from "zod";
 import { CHART_TYPES } from "../../shared/constants";
-import { DECIMAL_NUMBER, readChartCsvFile, SUBGROUP_SIZE_RANGE } from "../io/csv";
+import { readChartCsvFile } from "../io/csv";
 import { createRng } from "../spc/random";
 import { resolveRuleSet } from "../spc/rules";
 import { verifyFix, type VerificationResult } from "../spc/verification";
-import { UsageError, type Command, type ParsedArguments } from "./command";
-
-const number = z.string().regex(DECIMAL_NUMBER, "must be a number, e.g. 1.5").transform(Number);
-const wholeNumber = z.string().regex(/^\d+$/, "must be a whole number").transform(Number);
+import { CHART_FILE_OPTION_SCHEMAS, CHART_FILE_OPTIONS, chartFileArgument, decimalOption, refuseCrossedSpecification, valueOptions, wholeNumberOption } from "./chart-file";
+import type { Command, ParsedArguments } from "./command";
 
 const ZVerifyCommandOptions = z
   .object({
-    chart: z.enum(CHART_TYPES, {
-      error: (issue) => (issue.input === undefined ? "is required" : `must be one of ${CHART_TYPES.join(", ")}`),
-    }),
-    "adjusted-at": wholeNumber.pipe(z.number().min(1)),
-    baseline: wholeNumber.pipe(z.number().min(2)).optional(),
-    "subgroup-size": wholeNumber.pipe(z.number().min(SUBGROUP_SIZE_RANGE.min).max(SUBGROUP_SIZE_RANGE.max)).optional(),
-    rules: z.string().default("nelson"),
-    delta: number.pipe(z.number().positive()).default(1),
-    power: number.pipe(z.number().gt(0).lt(1)).default(0.9),
-    window: wholeNumber.pipe(z.number().min(2)).optional(),
-    target: number.optional(),
-    lsl: number.optional(),
-    usl: number.optional(),
-    format: z.enum(["text", "json"], { error: "must be text or json" }).default("text"),
+    chart: CHART_FILE_OPTION_SCHEMAS.chart,
+    "adjusted-at": wholeNumberOption.pipe(z.number().min(1)),
+    baseline: wholeNumberOption.pipe(z.number().min(2)).optional(),
+    "subgroup-size": CHART_FILE_OPTION_SCHEMAS["subgroup-size"],
+    rules: CHART_FILE_OPTION_SCHEMAS.rules,
+    delta: decimalOption.pipe(z.number().positive()).default(1),
+    power: decimalOption.pipe(z.number().gt(0).lt(1)).default(0.9),
+    window: wholeNumberOption.pipe(z.number().min(2)).optional(),
+    target: CHART_FILE_OPTION_SCHEMAS.target,
+    lsl: CHART_FILE_OPTION_SCHEMAS.lsl,
+    usl: CHART_FILE_OPTION_SCHEMAS.usl,
+    format: CHART_FILE_OPTION_SCHEMAS.format,
   })
   .superRefine((options, context) => {
-    if (options.lsl !== undefined && options.usl !== undefined && options.lsl >= options.usl) {
-      context.addIssue({ code: "custom", path: ["usl"], message: "must be greater than --lsl" });
-    }
+    refuseCrossedSpecification(options, context);
     if (options.baseline !== undefined && options.baseline > options["adjusted-at"]) {
       context.addIssue({ code: "custom", path: ["baseline"], message: "must end at or before --adjusted-at" });
     }
@@ -84,9 +78,7 @@ function formatText(result: VerificationResult): string {
 }
 
 async function run(parsed: ParsedArguments, output: { stdout: (text: string) => void }): Promise<number> {
-  const [file, ...extra] = parsed.positionals;
-  if (file === undefined) throw new UsageError("verify needs a CSV file: verify FILE.csv --chart TYPE --adjusted-at I");
-  if (extra.length > 0) throw new UsageError(`verify reads one file; unexpected argument "${extra[0]}"`);
+  const file = chartFileArgument(parsed, "verify", "verify FILE.csv --chart TYPE --adjusted-at I");
   const options = ZVerifyCommandOptions.parse(parsed.values);
   const input = await readChartCsvFile(file, options.chart, { subgroupSize: options["subgroup-size"] });
   const result = verifyFix({
@@ -138,19 +130,6 @@ export const verifyCommand: Command = {
   name: "verify",
   summary: "verdict on the subgroups after an adjustment: passed, failed or insufficient data",
   help,
-  options: {
-    chart: { type: "string" },
-    "adjusted-at": { type: "string" },
-    baseline: { type: "string" },
-    "subgroup-size": { type: "string" },
-    rules: { type: "string" },
-    delta: { type: "string" },
-    power: { type: "string" },
-    window: { type: "string" },
-    target: { type: "string" },
-    lsl: { type: "string" },
-    usl: { type: "string" },
-    format: { type: "string" },
-  },
+  options: { ...CHART_FILE_OPTIONS, ...valueOptions("adjusted-at", "baseline", "delta", "power", "window") },
   run,
 };
