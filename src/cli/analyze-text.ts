@@ -5,7 +5,7 @@
 import type { TAnalyzeReport, TCapabilityReport, TPatternReport, TSignalReport, TStatisticReport } from "../../shared/analyze-report";
 import { CHART_TYPE_LABELS, type RuleId } from "../../shared/constants";
 import { PATTERN_KIND_LABELS } from "../../shared/patterns";
-import { RULE_DEFINITIONS } from "../spc/rules";
+import { indexRanges, RULE_DEFINITIONS } from "../spc/rules";
 
 /** Seven significant digits: enough for any published limit, without float noise. */
 export function formatNumber(value: number | null): string {
@@ -24,20 +24,6 @@ function formatLimit(limit: TStatisticReport["ucl"]): string {
   const defined = limit.filter((value): value is number => value !== null);
   if (defined.length === 0) return "–";
   return `${formatNumber(Math.min(...defined))} to ${formatNumber(Math.max(...defined))} (varies)`;
-}
-
-/** "3–11" style ranges of sorted indices. */
-function formatIndices(indices: readonly number[]): string {
-  const parts: string[] = [];
-  let first = 0;
-  for (let position = 1; position <= indices.length; position++) {
-    if (position < indices.length && indices[position] === indices[position - 1]! + 1) continue;
-    const start = indices[first]!;
-    const end = indices[position - 1]!;
-    parts.push(start === end ? `${start}` : `${start}–${end}`);
-    first = position;
-  }
-  return parts.join(", ");
 }
 
 function table(rows: readonly (readonly string[])[]): string[] {
@@ -69,7 +55,7 @@ function signalLine(signal: TSignalReport, labels: readonly string[] | undefined
   const span = signal.start === signal.end ? `subgroup ${signal.start}` : `subgroups ${signal.start}–${signal.end}`;
   const named = labels === undefined ? "" : ` (${labels[signal.start]}${signal.start === signal.end ? "" : ` to ${labels[signal.end]}`})`;
   const side = signal.side === undefined ? "" : `, ${signal.side}`;
-  return `  ${signal.chart}: ${title} — ${span}${named}${side}; fires at ${formatIndices(signal.firing)}`;
+  return `  ${signal.chart}: ${title} — ${span}${named}${side}; fires at ${indexRanges(signal.firing).join(", ")}`;
 }
 
 /** "Shift in level on xbar, subgroups 40–52: changed after subgroup 39 (window 37–41, 95%)", then causes. */

@@ -12,6 +12,7 @@
 import type { RuleId } from "../../../shared/constants";
 import type { StatisticSeries } from "../types";
 import { RULE_DEFINITIONS } from "./definitions";
+import { indexRanges } from "./index-ranges";
 
 export interface RuleOptions {
   /** Apply the run rules (beyond rule 1) even where they do not apply by default. */
@@ -67,15 +68,7 @@ export function planRules(
 
 /** "0–4, 9, 12–20" for sorted indices, at most `shown` ranges and then how many more. */
 function describeRanges(indices: readonly number[], shown = 8): string {
-  const ranges: string[] = [];
-  let first = 0;
-  for (let position = 1; position <= indices.length; position++) {
-    if (position < indices.length && indices[position] === indices[position - 1]! + 1) continue;
-    const start = indices[first]!;
-    const end = indices[position - 1]!;
-    ranges.push(start === end ? `${start}` : `${start}–${end}`);
-    first = position;
-  }
+  const ranges = indexRanges(indices);
   const rest = ranges.length - shown;
   return rest > 0 ? `${ranges.slice(0, shown).join(", ")} and ${rest} more ranges` : ranges.join(", ");
 }

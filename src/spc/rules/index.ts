@@ -4,6 +4,7 @@
  */
 export { RULE_DEFINITIONS, RULE_SETS, LONGEST_RULE_WINDOW, type RuleDefinition } from "./definitions";
 export { resolveRuleSet } from "./rule-set";
+export { indexRanges } from "./index-ranges";
 export { planRules, type RuleOptions, type SkippedRule } from "./applicability";
 export { evaluateRules, ruleFirings, type RuleEvaluation } from "./evaluate";
 export { firingsAt, createRuleStream, RULE_TAIL_LENGTH, type RuleStream } from "./incremental";
