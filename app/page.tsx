@@ -1,13 +1,18 @@
 import Link from "next/link";
+import { TIME_ZONES } from "@/shared/intake";
 import { connection } from "next/server";
 import { CharacteristicCard } from "@/src/components/characteristic-card";
 import { loadCharacteristicOverview } from "@/src/characteristics/overview";
 import { prisma } from "@/src/db/client";
+import { siteZones } from "@/src/sites/zone";
+import { SiteZoneForm } from "./site-zone-form";
+import "./characteristics/characteristics.css";
 
 export default async function OverviewPage() {
   // Read the database for every request, never once at build time.
   await connection();
-  const processes = await loadCharacteristicOverview(prisma);
+  const [processes, sites] = await Promise.all([loadCharacteristicOverview(prisma), siteZones(prisma)]);
+  const zoneOf = (processId: number) => sites.find((site) => site.processIds.includes(processId))?.zone ?? "UTC";
   return (
     <>
       <h1>Characteristics</h1>
@@ -33,13 +38,14 @@ export default async function OverviewPage() {
             <ul className="cards">
               {process.characteristics.map((characteristic) => (
                 <li key={characteristic.id}>
-                  <CharacteristicCard characteristic={characteristic} />
+                  <CharacteristicCard characteristic={characteristic} zone={zoneOf(process.id)} />
                 </li>
               ))}
             </ul>
           </section>
         ))
       )}
+      {sites.length > 0 && <SiteZoneForm sites={sites.map(({ id, name, zone }) => ({ id, name, zone }))} zones={TIME_ZONES} />}
     </>
   );
 }

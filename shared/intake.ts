@@ -43,6 +43,37 @@ const ZFinite = z.number({ error: "must be a number" }).refine(Number.isFinite, 
 /** ISO 8601 date-time with an explicit offset or Z (a reading without a zone would be ambiguous). */
 export const ZTimestamp = z.iso.datetime({ offset: true, error: "must be an ISO 8601 date-time with a zone, e.g. 2026-03-01T06:00:00Z" });
 
+/**
+ * The time zones a site can be set to: the IANA names the runtime's Intl knows, and "UTC" (which
+ * `Intl.supportedValuesOf` leaves out because it is an alias there, yet Intl formats with it).
+ */
+export const TIME_ZONES: readonly string[] = ["UTC", ...Intl.supportedValuesOf("timeZone").filter((zone) => zone !== "UTC")];
+const KNOWN_TIME_ZONES = new Set(TIME_ZONES);
+
+/** A site's time zone: an IANA name such as "Europe/London", or "UTC". */
+export const ZTimeZone = z
+  .string({ error: "must be text" })
+  .trim()
+  .refine((zone) => KNOWN_TIME_ZONES.has(zone), { error: 'must be an IANA time zone name such as "Europe/London", or "UTC"' });
+
+export const ZSiteZoneInput = z.object({ siteId: z.number().int().positive(), zone: ZTimeZone }).strict();
+export type TSiteZoneInput = z.infer<typeof ZSiteZoneInput>;
+
+/**
+ * A wall-clock time as a datetime-local field sends it, "2026-03-01T06:00" (seconds optional), without a
+ * zone: the site's zone gives it one. A day or hour that no calendar has (30 Feb, 24:00) is refused here;
+ * a time the zone's clocks skip or show twice is judged when the zone is applied.
+ */
+export const ZLocalDateTime = z
+  .string({ error: "must be text" })
+  .trim()
+  .regex(/^\d{4}-\d\d-\d\dT\d\d:\d\d(:\d\d)?$/, { error: "must be a date and time such as 2026-03-01T06:00" })
+  .refine((text) => {
+    const stamp = text.length === 16 ? `${text}:00` : text;
+    const parsed = Date.parse(`${stamp}Z`);
+    return Number.isFinite(parsed) && new Date(parsed).toISOString().slice(0, 19) === stamp;
+  }, { error: "is not a date and time on the calendar" });
+
 /** A rule set: a named set or a comma-separated list of rule ids. */
 export const ZRuleSet = z
   .string()

@@ -4,7 +4,7 @@ import { SAFETY_CAUTION } from "../../shared/constants";
 import { formatTime, formatValue } from "./format";
 import { Sparkline } from "./sparkline";
 
-function trendDescription(characteristic: CharacteristicSummary): string {
+function trendDescription(characteristic: CharacteristicSummary, zone: string): string {
   const { trend, statisticName, unit } = characteristic;
   const first = trend[0];
   const last = trend.at(-1);
@@ -12,12 +12,13 @@ function trendDescription(characteristic: CharacteristicSummary): string {
   const values = trend.map((point) => point.value);
   const count = trend.length === 1 ? `The last ${statisticName}` : `Last ${trend.length} values of the ${statisticName}`;
   return (
-    `${count}, from ${formatTime(first.time)} to ${formatTime(last.time)}, ` +
+    `${count}, from ${formatTime(first.time, zone)} to ${formatTime(last.time, zone)}, ` +
     `ranging from ${formatValue(Math.min(...values))} to ${formatValue(Math.max(...values))} ${unit}.`
   );
 }
 
-export function CharacteristicCard({ characteristic }: { characteristic: CharacteristicSummary }) {
+/** `zone`: the site's time zone, in which the card shows its times. */
+export function CharacteristicCard({ characteristic, zone }: { characteristic: CharacteristicSummary; zone: string }) {
   const { latest } = characteristic;
   const cautionId = `safety-caution-${characteristic.id}`;
   return (
@@ -42,7 +43,7 @@ export function CharacteristicCard({ characteristic }: { characteristic: Charact
               {formatValue(latest.value)} {characteristic.unit}
             </p>
             <p className="latest-time">
-              <time dateTime={latest.time}>{formatTime(latest.time)}</time>
+              <time dateTime={latest.time}>{formatTime(latest.time, zone)}</time>
             </p>
           </>
         )}
@@ -60,7 +61,7 @@ export function CharacteristicCard({ characteristic }: { characteristic: Charact
       {characteristic.trend.length > 0 && (
         <figure className="sparkline">
           <Sparkline values={characteristic.trend.map((point) => point.value)} />
-          <figcaption>{trendDescription(characteristic)}</figcaption>
+          <figcaption>{trendDescription(characteristic, zone)}</figcaption>
         </figure>
       )}
       <p className="card-actions">

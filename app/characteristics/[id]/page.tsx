@@ -14,6 +14,7 @@ import { eventsFor } from "@/src/events";
 import { limitSetsFor } from "@/src/limits";
 import { RULE_DEFINITIONS } from "@/src/spc/rules";
 import { signalsFor } from "@/src/signals";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { findCharacteristic } from "../find-characteristic";
 import "../characteristics.css";
 
@@ -24,12 +25,13 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
   await connection();
   const characteristic = await findCharacteristic(params);
   const view = loadChartView(chartDatabase(), characteristic.id);
-  const summary = summarizeChart(view);
-  const [limitSets, signals, events] = await Promise.all([
+  const [limitSets, signals, events, zone] = await Promise.all([
     limitSetsFor(prisma, characteristic.id),
     signalsFor(prisma, characteristic.id),
     eventsFor(prisma, characteristic.processId),
+    zoneOfProcess(prisma, characteristic.processId),
   ]);
+  const summary = summarizeChart(view, zone);
   const recentSignals = signals.slice(-LISTED).reverse();
   const recentEvents = events.slice(-LISTED).reverse();
   const cautionId = "safety-caution";
@@ -66,10 +68,10 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
       </nav>
       <p className="facts-line">
         {CHART_TYPE_LABELS[characteristic.chartType]} · subgroup size {characteristic.subgroupSize} · {characteristic.unit} · rules{" "}
-        {characteristic.ruleSet} · {characteristic.subgroupCount.toLocaleString("en")} subgroups
+        {characteristic.ruleSet} · {characteristic.subgroupCount.toLocaleString("en")} subgroups · times in {zone}
       </p>
 
-      <ControlChart initialView={view} />
+      <ControlChart initialView={view} zone={zone} />
 
       <h2 id="limits-heading">Limit versions</h2>
       {limitSets.length === 0 ? (
@@ -115,7 +117,7 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
                   </td>
                   <td>{limitSet.reason}</td>
                   <td>
-                    {limitSet.approvedBy}, {formatTime(limitSet.createdAt.toISOString())}
+                    {limitSet.approvedBy}, {formatTime(limitSet.createdAt.toISOString(), zone)}
                   </td>
                 </tr>
               ))}
@@ -145,7 +147,7 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
                   {STATISTIC_LABELS[signal.statistic]}, subgroups {signal.startSequence}–{signal.endSequence}
                   {signal.side !== null && `, ${signal.side} the centre line`}
                   {signal.pattern !== null && ` · pattern: ${PATTERN_KIND_LABELS[signal.pattern]}`} · limits v{signal.limitSetVersion} · {signal.status} ·
-                  detected {formatTime(signal.detectedAt.toISOString())}
+                  detected {formatTime(signal.detectedAt.toISOString(), zone)}
                 </p>
               </li>
             ))}
@@ -160,7 +162,7 @@ export default async function CharacteristicPage({ params }: { params: Promise<{
         <ol className="event-list" aria-labelledby="events-heading" reversed>
           {recentEvents.map((event) => (
             <li key={event.id}>
-              <time dateTime={event.occurredAt.toISOString()}>{formatTime(event.occurredAt.toISOString())}</time> ·{" "}
+              <time dateTime={event.occurredAt.toISOString()}>{formatTime(event.occurredAt.toISOString(), zone)}</time> ·{" "}
               <strong>{EVENT_KIND_LABELS[event.kind as keyof typeof EVENT_KIND_LABELS] ?? event.kind}</strong>: {event.description}
               {event.value !== null && ` (${formatValue(event.value)} ${event.unit ?? ""})`}
             </li>

@@ -24,9 +24,10 @@ function Legend() {
 
 /**
  * The control chart with its range selector: the first view comes from the server with the page; a new
- * range is fetched, decimated for that range, from the chart-data route.
+ * range is fetched, decimated for that range, from the chart-data route. Its times (ISO 8601 UTC, as the
+ * route answers) are shown in `zone`, the site's time zone, with the zone's name.
  */
-export function ControlChart({ initialView }: { initialView: TChartView }) {
+export function ControlChart({ initialView, zone }: { initialView: TChartView; zone: string }) {
   const [view, setView] = useState(initialView);
   const [problem, setProblem] = useState<string | null>(null);
   const [loading, setLoading] = useState(false);
@@ -99,8 +100,8 @@ export function ControlChart({ initialView }: { initialView: TChartView }) {
         </p>
       )}
       <Legend />
-      {primary !== undefined && <StatisticPanel statistic={primary} events={view.events} unit={view.unit} height={MAIN_HEIGHT} domain={domain} />}
-      {spread !== undefined && <StatisticPanel statistic={spread} events={view.events} unit={view.unit} height={SPREAD_HEIGHT} domain={domain} />}
+      {primary !== undefined && <StatisticPanel statistic={primary} events={view.events} unit={view.unit} zone={zone} height={MAIN_HEIGHT} domain={domain} />}
+      {spread !== undefined && <StatisticPanel statistic={spread} events={view.events} unit={view.unit} zone={zone} height={SPREAD_HEIGHT} domain={domain} />}
     </section>
   );
 }

@@ -26,7 +26,7 @@ const EVENT = "#5b3a8c";
 /** Dots on every point only while they stay apart. */
 const MOST_DOTS = 250;
 
-function PointTooltip({ active, payload, unit }: TooltipContentProps & { unit: string }) {
+function PointTooltip({ active, payload, unit, zone }: TooltipContentProps & { unit: string; zone: string }) {
   const row = payload?.[0]?.payload as TChartRow | undefined;
   if (!active || row === undefined) return null;
   const { point } = row;
@@ -34,7 +34,7 @@ function PointTooltip({ active, payload, unit }: TooltipContentProps & { unit: s
   return (
     <div className="chart-tooltip">
       <p>
-        <strong>Subgroup {point.sequence}</strong> · {formatTime(point.timestamp)}
+        <strong>Subgroup {point.sequence}</strong> · {formatTime(point.timestamp, zone)}
       </p>
       <p>
         {point.value === null ? "No value" : `${formatValue(point.value)} ${unit}`}
@@ -55,8 +55,8 @@ function PointTooltip({ active, payload, unit }: TooltipContentProps & { unit: s
   );
 }
 
-function EventMarker({ event }: { event: TChartEvent }) {
-  const text = `${EVENT_KIND_LABELS[event.kind]}: ${event.description}${event.value === null ? "" : ` (${event.value} ${event.unit ?? ""})`} · ${formatTime(event.occurredAt)}`;
+function EventMarker({ event, zone }: { event: TChartEvent; zone: string }) {
+  const text = `${EVENT_KIND_LABELS[event.kind]}: ${event.description}${event.value === null ? "" : ` (${event.value} ${event.unit ?? ""})`} · ${formatTime(event.occurredAt, zone)}`;
   return (
     <ReferenceLine
       x={event.position}
@@ -79,12 +79,15 @@ export function StatisticPanel({
   statistic,
   events,
   unit,
+  zone,
   height,
   domain,
 }: {
   statistic: TStatisticView;
   events: readonly TChartEvent[];
   unit: string;
+  /** The site's time zone: tooltips and event markers show times in it. */
+  zone: string;
   height: number;
   domain: [number, number];
 }) {
@@ -99,7 +102,7 @@ export function StatisticPanel({
             <CartesianGrid stroke="#e2e0d8" vertical={false} />
             <XAxis dataKey="sequence" type="number" domain={domain} allowDataOverflow tick={{ fontSize: 14 }} />
             <YAxis domain={["auto", "auto"]} tick={{ fontSize: 14 }} width={72} tickFormatter={(value: number) => formatValue(value)} />
-            <Tooltip content={(props) => <PointTooltip {...(props as TooltipContentProps)} unit={unit} />} isAnimationActive={false} />
+            <Tooltip content={(props) => <PointTooltip {...(props as TooltipContentProps)} unit={unit} zone={zone} />} isAnimationActive={false} />
             <Line dataKey="ucl" type="stepAfter" stroke={ACTION} strokeWidth={2} strokeDasharray="8 4" dot={false} isAnimationActive={false} connectNulls={false} />
             <Line dataKey="lcl" type="stepAfter" stroke={ACTION} strokeWidth={2} strokeDasharray="8 4" dot={false} isAnimationActive={false} connectNulls={false} />
             <Line dataKey="upperWarning" type="stepAfter" stroke={WARNING} strokeWidth={1.5} strokeDasharray="2 4" dot={false} isAnimationActive={false} />
@@ -117,7 +120,7 @@ export function StatisticPanel({
             <Scatter dataKey="original" shape="circle" fill="none" stroke={ORIGINAL} strokeWidth={2} isAnimationActive={false} className="chart-originals" />
             <Scatter dataKey="signal" shape="triangle" fill={ACTION} stroke="#fff" isAnimationActive={false} className="chart-signals" />
             {events.map((event) => (
-              <EventMarker key={event.id} event={event} />
+              <EventMarker key={event.id} event={event} zone={zone} />
             ))}
           </ComposedChart>
         </ResponsiveContainer>

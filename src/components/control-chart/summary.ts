@@ -13,7 +13,8 @@ export interface TChartSummary {
   readonly detail: string | null;
 }
 
-export function summarizeChart(view: TChartView): TChartSummary {
+/** `zone`: the site's time zone, in which the latest firing's time is written. */
+export function summarizeChart(view: TChartView, zone: string): TChartSummary {
   if (view.history === null) return { headline: "No subgroups recorded yet", inControl: true, detail: null };
   const hasLimits = view.statistics.some((statistic) => statistic.segments.length > 0);
   if (!hasLimits) {
@@ -29,7 +30,7 @@ export function summarizeChart(view: TChartView): TChartSummary {
   const headline = inControl
     ? `In control since subgroup ${latest.endSequence + 1}`
     : `Out of control at the latest subgroup (${view.history.last})`;
-  const when = latest.lastFiringAt === null ? `subgroup ${latest.endSequence}` : formatTime(latest.lastFiringAt);
+  const when = latest.lastFiringAt === null ? `subgroup ${latest.endSequence}` : formatTime(latest.lastFiringAt, zone);
   const count = open === 1 ? "1 open signal" : `${open} open signals`;
   return { headline, inControl, detail: `${count}, latest: ${latest.ruleText} (${latest.rule}) at ${when}` };
 }

@@ -67,7 +67,7 @@ function view(signals: TChartSignal[], last = 9, withLimits = true): TChartView 
 
 describe("summarizeChart", () => {
   test("in control since the point after the latest signal, with the open count and the latest rule in words", () => {
-    expect(summarizeChart(view([signal(1, 3), signal(2, 5, "closed"), signal(3, 6)]))).toEqual({
+    expect(summarizeChart(view([signal(1, 3), signal(2, 5, "closed"), signal(3, 6)]), "UTC")).toEqual({
       headline: "In control since subgroup 7",
       inControl: true,
       detail: "2 open signals, latest: 1 point beyond the control limits (nelson-1) at 1 Mar 2026, 14:20 UTC",
@@ -75,16 +75,16 @@ describe("summarizeChart", () => {
   });
 
   test("out of control when the latest point fired", () => {
-    const summary = summarizeChart(view([signal(1, 9)]));
+    const summary = summarizeChart(view([signal(1, 9)]), "UTC");
     expect(summary.inControl).toBe(false);
     expect(summary.headline).toBe("Out of control at the latest subgroup (9)");
     expect(summary.detail).toMatch(/^1 open signal, latest/);
   });
 
   test("no signal, no limits, no data", () => {
-    expect(summarizeChart(view([])).headline).toBe("In control: no signal in subgroups 0–9");
-    expect(summarizeChart(view([], 9, false)).headline).toMatch(/^No control limits yet/);
-    expect(summarizeChart({ ...view([]), history: null }).headline).toBe("No subgroups recorded yet");
+    expect(summarizeChart(view([]), "UTC").headline).toBe("In control: no signal in subgroups 0–9");
+    expect(summarizeChart(view([], 9, false), "UTC").headline).toMatch(/^No control limits yet/);
+    expect(summarizeChart({ ...view([]), history: null }, "UTC").headline).toBe("No subgroups recorded yet");
   });
 });
 

@@ -5,6 +5,7 @@ import { connection } from "next/server";
 import { VARIABLES_CHART_TYPES } from "@/shared/constants";
 import { formatTime } from "@/src/components/format";
 import { prisma } from "@/src/db/client";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { correctionsFor } from "@/src/subgroups";
 import { findCharacteristic } from "../../find-characteristic";
 import { correctFromForm } from "./actions";
@@ -14,7 +15,8 @@ import "../../characteristics.css";
 export default async function CorrectionsPage({ params }: { params: Promise<{ id: string }> }) {
   await connection();
   const characteristic = await findCharacteristic(params);
-  const corrections = (await correctionsFor(prisma, characteristic.id)).reverse();
+  const [stored, zone] = await Promise.all([correctionsFor(prisma, characteristic.id), zoneOfProcess(prisma, characteristic.processId)]);
+  const corrections = stored.reverse();
   const variables = VARIABLES_CHART_TYPES.includes(characteristic.chartType);
   return (
     <>
@@ -62,7 +64,7 @@ export default async function CorrectionsPage({ params }: { params: Promise<{ id
                   <td>{correction.reason}</td>
                   <td>{correction.correctedBy}</td>
                   <td>
-                    <time dateTime={correction.correctedAt.toISOString()}>{formatTime(correction.correctedAt.toISOString())}</time>
+                    <time dateTime={correction.correctedAt.toISOString()}>{formatTime(correction.correctedAt.toISOString(), zone)}</time>
                   </td>
                 </tr>
               ))}

@@ -1,14 +1,16 @@
 "use server";
-// Manual entry of one subgroup: parse with the characteristic's subgroup schema, store it through live
-// detection, answer with the verdict in words (or the field problems).
+// Manual entry of one subgroup: the time read as wall-clock time in the site's zone, the rest parsed with the
+// characteristic's subgroup schema; stored through live detection; the answer is the verdict in words (or
+// the field problems).
 import { VARIABLES_CHART_TYPES } from "@/shared/constants";
 import { describeIssues, subgroupSchemaFor } from "@/shared/intake";
 import { getCharacteristic } from "@/src/characteristics/setup";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { RULE_DEFINITIONS } from "@/src/spc/rules";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { appendSubgroups } from "@/src/subgroups";
-import { numberField, utcTimeField } from "../../setup-fields";
+import { numberField, withTimeProblem, zonedTimeField, type TTimeChoices } from "../../setup-fields";
 
 export type TEntryState =
   | { readonly ok: null }
@@ -17,6 +19,7 @@ export type TEntryState =
       readonly issues: readonly { path: string; message: string }[];
       /** What was typed, so the form shows it again beside its problems. */
       readonly entered: Readonly<Record<string, string>>;
+      readonly timeChoices?: TTimeChoices;
     }
   | {
       readonly ok: true;
@@ -29,20 +32,22 @@ export type TEntryState =
 export async function enterSubgroup(characteristicId: number, _previous: TEntryState, form: FormData): Promise<TEntryState> {
   const characteristic = await getCharacteristic(prisma, characteristicId);
   const variables = VARIABLES_CHART_TYPES.includes(characteristic.chartType);
+  const time = zonedTimeField(form, "timestamp", await zoneOfProcess(prisma, characteristic.processId));
   const input = variables
     ? {
-        timestamp: utcTimeField(form, "timestamp"),
+        timestamp: time.value,
         values: Array.from({ length: characteristic.subgroupSize }, (_, position) => numberField(form, `values.${position}`)),
       }
     : {
-        timestamp: utcTimeField(form, "timestamp"),
+        timestamp: time.value,
         count: numberField(form, "count"),
         ...(characteristic.chartType === "u" ? { units: numberField(form, "units") } : {}),
         ...(characteristic.chartType === "p" || characteristic.chartType === "np" ? { size: numberField(form, "size") } : {}),
       };
   const parsed = subgroupSchemaFor(characteristic.chartType, characteristic.subgroupSize).safeParse(input);
   const entered = Object.fromEntries([...form.entries()].map(([name, value]) => [name, String(value)]));
-  if (!parsed.success) return { ok: false, issues: describeIssues(parsed.error), entered };
+  const problems = withTimeProblem(time, parsed.success ? [] : describeIssues(parsed.error));
+  if (!parsed.success || problems.issues.length > 0) return { ok: false, ...problems, entered };
   try {
     const result = await appendSubgroups(prisma, characteristicId, [parsed.data], { source: "entry", now: new Date() });
     const stored = result.stored[0]!;

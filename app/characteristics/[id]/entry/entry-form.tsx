@@ -2,6 +2,7 @@
 
 import { useActionState } from "react";
 import type { ChartType } from "@/shared/constants";
+import { ZonedTimeField } from "../../zoned-time-field";
 import { enterSubgroup, type TEntryState } from "./actions";
 
 interface TField {
@@ -67,12 +68,15 @@ export function EntryForm({
   chartType,
   subgroupSize,
   unit,
+  zone,
   defaultTime,
 }: {
   characteristicId: number;
   chartType: ChartType;
   subgroupSize: number;
   unit: string;
+  /** The site's time zone: the time is typed as wall-clock time in it, and `defaultTime` is one. */
+  zone: string;
   defaultTime: string;
 }) {
   const [state, action, pending] = useActionState(enterSubgroup.bind(null, characteristicId), { ok: null } as TEntryState);
@@ -81,7 +85,6 @@ export function EntryForm({
   const problemOf = (name: string) => issues.filter((issue) => issue.path === name).map((issue) => issue.message).join("; ");
   const general = issues.filter((issue) => issue.path === "" || issue.path === "values");
   const fields = fieldsFor(chartType, subgroupSize, unit);
-  const timeProblem = problemOf("timestamp");
   return (
     <>
       <Outcome state={state} />
@@ -91,19 +94,13 @@ export function EntryForm({
             {issue.path === "" ? issue.message : `Values ${issue.message}`}
           </p>
         ))}
-        <div className="field">
-          <label htmlFor="timestamp">Time (UTC)</label>
-          <input
-            id="timestamp"
-            name="timestamp"
-            type="datetime-local"
-            defaultValue={entered.timestamp ?? defaultTime}
-            required
-            aria-invalid={timeProblem !== ""}
-            aria-describedby={timeProblem !== "" ? "timestamp-error" : undefined}
-          />
-          {timeProblem !== "" && <p className="field-error" id="timestamp-error">Time {timeProblem}</p>}
-        </div>
+        <ZonedTimeField
+          name="timestamp"
+          zone={zone}
+          defaultValue={entered.timestamp ?? defaultTime}
+          issues={issues}
+          choices={state.ok === false ? state.timeChoices?.timestamp : undefined}
+        />
         <div className={fields.length > 2 ? "values-grid" : undefined}>
           {fields.map((field, index) => {
             const problem = problemOf(field.name);

@@ -2,6 +2,9 @@
 import Link from "next/link";
 import { connection } from "next/server";
 import { SAFETY_CAUTION } from "@/shared/constants";
+import { wallClockText } from "@/src/components/local-time";
+import { prisma } from "@/src/db/client";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { findCharacteristic } from "../../find-characteristic";
 import { EntryForm } from "./entry-form";
 import "../../characteristics.css";
@@ -9,7 +12,7 @@ import "../../characteristics.css";
 export default async function EntryPage({ params }: { params: Promise<{ id: string }> }) {
   await connection();
   const characteristic = await findCharacteristic(params);
-  const now = new Date().toISOString().slice(0, 16);
+  const zone = await zoneOfProcess(prisma, characteristic.processId);
   const limits = characteristic.limitsInForce;
   return (
     <>
@@ -28,7 +31,8 @@ export default async function EntryPage({ params }: { params: Promise<{ id: stri
         chartType={characteristic.chartType}
         subgroupSize={characteristic.subgroupSize}
         unit={characteristic.unit}
-        defaultTime={now}
+        zone={zone}
+        defaultTime={wallClockText(new Date(), zone)}
       />
     </>
   );

@@ -4,9 +4,11 @@ import { useActionState } from "react";
 import { CAUSE_CATEGORIES, EVENT_KINDS, EVENT_KIND_LABELS } from "@/shared/constants";
 import { FormProblems, problemOf as fieldProblem } from "../../../characteristics/form-field";
 import { enteredOr, type TFormState } from "../../../characteristics/setup-fields";
+import { ZonedTimeField } from "../../../characteristics/zoned-time-field";
 import { addEvent } from "./actions";
 
-export function EventForm({ processId, defaultTime }: { processId: number; defaultTime: string }) {
+/** `zone`: the site's time zone, in which the time is typed; `defaultTime` is wall-clock time in it. */
+export function EventForm({ processId, zone, defaultTime }: { processId: number; zone: string; defaultTime: string }) {
   const [state, action, pending] = useActionState(addEvent.bind(null, processId), { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
   const problemOf = (name: string) => fieldProblem(issues, name);
@@ -21,11 +23,13 @@ export function EventForm({ processId, defaultTime }: { processId: number; defau
     <form action={action} className="settings-form" noValidate>
       {state.ok === true && <p role="status">{state.message}</p>}
       <FormProblems issues={issues} />
-      <div className="field">
-        <label htmlFor="occurredAt">Time (UTC)</label>
-        <input id="occurredAt" name="occurredAt" type="datetime-local" defaultValue={enteredOr(state, "occurredAt", defaultTime)} {...described("occurredAt")} />
-        {error("occurredAt", "Time")}
-      </div>
+      <ZonedTimeField
+        name="occurredAt"
+        zone={zone}
+        defaultValue={enteredOr(state, "occurredAt", defaultTime)}
+        issues={issues}
+        choices={state.ok === false ? state.timeChoices?.occurredAt : undefined}
+      />
       <div className="field">
         <label htmlFor="kind">Kind</label>
         <select id="kind" name="kind" defaultValue={enteredOr(state, "kind", "lot-change")} {...described("kind")}>

@@ -5,9 +5,11 @@ import { connection } from "next/server";
 import { ZIdParams } from "@/shared/api";
 import { EVENT_KIND_LABELS, type EventKind } from "@/shared/constants";
 import { formatTime, formatValue } from "@/src/components/format";
+import { wallClockText } from "@/src/components/local-time";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { eventsFor } from "@/src/events";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { EventForm } from "./event-form";
 import "../../../characteristics/characteristics.css";
 
@@ -20,10 +22,13 @@ export default async function ProcessEventsPage({ params }: { params: Promise<{ 
     select: { id: true, name: true, characteristics: { select: { id: true, name: true }, orderBy: { name: "asc" } } },
   });
   if (process === null) notFound();
-  const events = await eventsFor(prisma, process.id).catch((error: unknown) => {
-    if (isAppError(error) && error.code === "not-found") notFound();
-    throw error;
-  });
+  const [events, zone] = await Promise.all([
+    eventsFor(prisma, process.id).catch((error: unknown) => {
+      if (isAppError(error) && error.code === "not-found") notFound();
+      throw error;
+    }),
+    zoneOfProcess(prisma, process.id),
+  ]);
   return (
     <>
       <p className="breadcrumb">
@@ -37,7 +42,7 @@ export default async function ProcessEventsPage({ params }: { params: Promise<{ 
       </p>
       <h1>Event log: {process.name}</h1>
       <h2 id="record-heading">Record an event</h2>
-      <EventForm processId={process.id} defaultTime={new Date().toISOString().slice(0, 16)} />
+      <EventForm processId={process.id} zone={zone} defaultTime={wallClockText(new Date(), zone)} />
       <h2 id="log-heading">Events, newest first</h2>
       {events.length === 0 ? (
         <p>No events recorded yet.</p>
@@ -57,7 +62,7 @@ export default async function ProcessEventsPage({ params }: { params: Promise<{ 
               {[...events].reverse().map((event) => (
                 <tr key={event.id}>
                   <td>
-                    <time dateTime={event.occurredAt.toISOString()}>{formatTime(event.occurredAt.toISOString())}</time>
+                    <time dateTime={event.occurredAt.toISOString()}>{formatTime(event.occurredAt.toISOString(), zone)}</time>
                   </td>
                   <td>{EVENT_KIND_LABELS[event.kind as EventKind] ?? event.kind}</td>
                   <td>{event.causeCategory ?? "—"}</td>
