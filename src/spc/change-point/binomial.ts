@@ -12,7 +12,7 @@
  * each term taken as 0 when its count is 0 (the limit of x log x). Cost: O(T).
  */
 import { SpcInputError } from "../types";
-import { DEFAULT_CONFIDENCE_LEVEL, requireInside, requireSeries, summarizeProfile } from "./profile";
+import { DEFAULT_CONFIDENCE_LEVEL, ratioStepProfile, requireInside, requireSeries } from "./profile";
 import type { RateChangePoint } from "./poisson";
 
 export interface BinomialChangePointOptions {
@@ -36,13 +36,7 @@ export function binomialChangePoint(defectives: Float64Array, options: BinomialC
   if (sizes.length !== defectives.length) {
     throw new SpcInputError(`sizes has ${sizes.length} entries but there are ${defectives.length} counts`);
   }
-  const count = defectives.length;
-  const profile = new Float64Array(count);
-  const defectiveSums = new Float64Array(count);
-  const sizeSums = new Float64Array(count);
-  let defectiveSum = 0;
-  let sizeSum = 0;
-  for (let index = count - 1; index >= 0; index--) {
+  for (let index = defectives.length - 1; index >= 0; index--) {
     const value = defectives[index] as number;
     const size = sizes[index] as number;
     if (!(Number.isFinite(size) && size > 0)) {
@@ -51,17 +45,19 @@ export function binomialChangePoint(defectives: Float64Array, options: BinomialC
     if (value < 0 || value > size) {
       throw new SpcInputError(`count at index ${index} (${value}) must lie between 0 and its sample size ${size}`, index);
     }
-    defectiveSum += value;
-    sizeSum += size;
-    defectiveSums[index] = defectiveSum;
-    sizeSums[index] = sizeSum;
-    const fractionAfter = defectiveSum / sizeSum;
-    profile[index] =
-      weightedLogRatio(defectiveSum, fractionAfter / fraction) +
-      weightedLogRatio(sizeSum - defectiveSum, (1 - fractionAfter) / (1 - fraction));
   }
-  const summary = summarizeProfile(profile, options.level ?? DEFAULT_CONFIDENCE_LEVEL);
-  const first = summary.index + 1;
-  const newLevel = (defectiveSums[first] as number) / (sizeSums[first] as number);
+  const { summary, numeratorAfter, denominatorAfter } = ratioStepProfile(
+    defectives,
+    sizes,
+    (defectiveSum, sizeSum) => {
+      const fractionAfter = defectiveSum / sizeSum;
+      return (
+        weightedLogRatio(defectiveSum, fractionAfter / fraction) +
+        weightedLogRatio(sizeSum - defectiveSum, (1 - fractionAfter) / (1 - fraction))
+      );
+    },
+    options.level ?? DEFAULT_CONFIDENCE_LEVEL,
+  );
+  const newLevel = numeratorAfter / denominatorAfter;
   return { ...summary, newLevel, ratio: newLevel / fraction };
 }

@@ -13,7 +13,7 @@
  * ℓ(k) ≥ 0, being a Kullback–Leibler-type divergence. Cost: O(T).
  */
 import { SpcInputError } from "../types";
-import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, requireInside, requireSeries, summarizeProfile } from "./profile";
+import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, ratioStepProfile, requireInside, requireSeries } from "./profile";
 
 export interface PoissonChangePointOptions {
   /** Known in-control rate per inspection unit (c̄ on a c chart, ū on a u chart). */
@@ -38,29 +38,26 @@ export function poissonChangePoint(counts: Float64Array, options: PoissonChangeP
   if (units !== undefined && units.length !== counts.length) {
     throw new SpcInputError(`units has ${units.length} entries but there are ${counts.length} counts`);
   }
-  const count = counts.length;
-  const profile = new Float64Array(count);
-  const countSums = new Float64Array(count);
-  const unitSums = new Float64Array(count);
-  let countSum = 0;
-  let unitSum = 0;
-  for (let index = count - 1; index >= 0; index--) {
+  const unitCounts = units ?? new Float64Array(counts.length).fill(1);
+  for (let index = counts.length - 1; index >= 0; index--) {
     const value = counts[index] as number;
-    const size = units === undefined ? 1 : (units[index] as number);
+    const size = unitCounts[index] as number;
     if (value < 0) throw new SpcInputError(`count at index ${index} is negative (${value})`, index);
     if (!(Number.isFinite(size) && size > 0)) {
       throw new SpcInputError(`units at index ${index} must be a positive finite number, got ${size}`, index);
     }
-    countSum += value;
-    unitSum += size;
-    countSums[index] = countSum;
-    unitSums[index] = unitSum;
-    const rateAfter = countSum / unitSum;
-    const logTerm = countSum === 0 ? 0 : countSum * Math.log(rateAfter / options.rate);
-    profile[index] = logTerm - unitSum * (rateAfter - options.rate);
   }
-  const summary = summarizeProfile(profile, options.level ?? DEFAULT_CONFIDENCE_LEVEL);
-  const first = summary.index + 1;
-  const newLevel = (countSums[first] as number) / (unitSums[first] as number);
-  return { ...summary, newLevel, ratio: newLevel / options.rate };
+  const { rate } = options;
+  const { summary, numeratorAfter, denominatorAfter } = ratioStepProfile(
+    counts,
+    unitCounts,
+    (countSum, unitSum) => {
+      const rateAfter = countSum / unitSum;
+      const logTerm = countSum === 0 ? 0 : countSum * Math.log(rateAfter / rate);
+      return logTerm - unitSum * (rateAfter - rate);
+    },
+    options.level ?? DEFAULT_CONFIDENCE_LEVEL,
+  );
+  const newLevel = numeratorAfter / denominatorAfter;
+  return { ...summary, newLevel, ratio: newLevel / rate };
 }

@@ -81,6 +81,44 @@ export function summarizeProfile(profile: Float64Array, level: number = DEFAULT_
   };
 }
 
+/** A step-change profile summarised, with the two sums of its new level over the points after the change. */
+export interface RatioStepProfile {
+  readonly summary: ChangePointSummary;
+  readonly numeratorAfter: number;
+  readonly denominatorAfter: number;
+}
+
+/**
+ * The profile of a step change whose new level is the ratio of two sums over the points after k
+ * (weighted deviations over weights for a normal mean, counts over inspection units for a rate,
+ * defectives over sample sizes for a fraction), summarised. Walks backwards keeping the suffix sums of
+ * `numerators` and `denominators`: after index i they cover i .. T−1, the points after candidate
+ * k = i − 1, and `likelihood` of the two sums is ℓ(k). Cost: O(T).
+ */
+export function ratioStepProfile(
+  numerators: Float64Array,
+  denominators: Float64Array,
+  likelihood: (numeratorSum: number, denominatorSum: number) => number,
+  level: number,
+): RatioStepProfile {
+  const count = numerators.length;
+  const profile = new Float64Array(count);
+  const numeratorSums = new Float64Array(count);
+  const denominatorSums = new Float64Array(count);
+  let numeratorSum = 0;
+  let denominatorSum = 0;
+  for (let index = count - 1; index >= 0; index--) {
+    numeratorSum += numerators[index] as number;
+    denominatorSum += denominators[index] as number;
+    numeratorSums[index] = numeratorSum;
+    denominatorSums[index] = denominatorSum;
+    profile[index] = likelihood(numeratorSum, denominatorSum);
+  }
+  const summary = summarizeProfile(profile, level);
+  const first = summary.index + 1;
+  return { summary, numeratorAfter: numeratorSums[first] as number, denominatorAfter: denominatorSums[first] as number };
+}
+
 /** Checks a series analysed for a change point: at least two points, all finite. */
 export function requireSeries(values: Float64Array, name: string): void {
   if (values.length < 2) {

@@ -15,7 +15,7 @@
  * no-change log-likelihood leaves the expression above.
  * Cost: O(T) through suffix sums.
  */
-import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, normalModelWeights, summarizeProfile } from "./profile";
+import { type ChangePointSummary, DEFAULT_CONFIDENCE_LEVEL, normalModelWeights, ratioStepProfile } from "./profile";
 
 export interface NormalChangePointOptions {
   /** Known in-control mean μ0 of the plotted statistic. */
@@ -39,26 +39,14 @@ export interface StepChangePoint extends ChangePointSummary {
 /** Maximum-likelihood time of a step change in a normal mean, with its new level. */
 export function stepChangePoint(values: Float64Array, options: NormalChangePointOptions): StepChangePoint {
   const weights = normalModelWeights(values, options.center, options.sigma, "step change point");
-  const count = values.length;
-  const profile = new Float64Array(count);
-  const weightedSums = new Float64Array(count);
-  const weightSums = new Float64Array(count);
-  let weightedSum = 0;
-  let weightSum = 0;
-  // Walk backwards: after processing index i, the sums cover i..T-1, i.e. candidate k = i - 1.
-  for (let index = count - 1; index >= 0; index--) {
-    const weight = weights[index] as number;
-    weightedSum += weight * ((values[index] as number) - options.center);
-    weightSum += weight;
-    weightedSums[index] = weightedSum;
-    weightSums[index] = weightSum;
-    profile[index] = (weightedSum * weightedSum) / (2 * weightSum);
-  }
-  const summary = summarizeProfile(profile, options.level ?? DEFAULT_CONFIDENCE_LEVEL);
-  const first = summary.index + 1;
-  const sumAfter = weightedSums[first] as number;
-  const precisionAfter = weightSums[first] as number;
-  const shift = sumAfter / precisionAfter;
-  const meanPrecision = precisionAfter / (count - first);
+  const deviations = weights.map((weight, index) => weight * ((values[index] as number) - options.center));
+  const { summary, numeratorAfter, denominatorAfter } = ratioStepProfile(
+    deviations,
+    weights,
+    (weightedSum, weightSum) => (weightedSum * weightedSum) / (2 * weightSum),
+    options.level ?? DEFAULT_CONFIDENCE_LEVEL,
+  );
+  const shift = numeratorAfter / denominatorAfter;
+  const meanPrecision = denominatorAfter / (values.length - (summary.index + 1));
   return { ...summary, newLevel: options.center + shift, shiftInSigma: shift * Math.sqrt(meanPrecision) };
 }
