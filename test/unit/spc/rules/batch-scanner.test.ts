@@ -121,6 +121,22 @@ const seriesArbitrary = fc
   });
 const rulesArbitrary = fc.subarray([...RULE_IDS], { minLength: 1 }).map((rules: RuleId[]) => ruleMask(rules));
 
+/** A series centred on 0 with limits at ±3 and one sigma for every point. */
+function fixedLimitSeries(values: readonly number[], sigma: number, uniformLimits: boolean): StatisticSeries {
+  const length = values.length;
+  return {
+    key: "x",
+    points: Float64Array.from(values),
+    center: 0,
+    ucl: new Float64Array(length).fill(3),
+    lcl: new Float64Array(length).fill(-3),
+    sigma: new Float64Array(length).fill(sigma),
+    floor: Number.NEGATIVE_INFINITY,
+    zoneRulesByDefault: true,
+    uniformLimits,
+  };
+}
+
 describe("word-parallel batch scan = point-by-point scanner", () => {
   test("same firings in the same order on random series, every rule subset", () => {
     fc.assert(
@@ -138,18 +154,7 @@ describe("word-parallel batch scan = point-by-point scanner", () => {
         // Constant limits, with and without the flag: the fast path and the per-word check of the limits.
         fc.boolean(),
         (values, uniformLimits) => {
-          const length = values.length;
-          const series: StatisticSeries = {
-            key: "x",
-            points: Float64Array.from(values),
-            center: 0,
-            ucl: new Float64Array(length).fill(3),
-            lcl: new Float64Array(length).fill(-3),
-            sigma: new Float64Array(length).fill(1),
-            floor: Number.NEGATIVE_INFINITY,
-            zoneRulesByDefault: true,
-            uniformLimits,
-          };
+          const series = fixedLimitSeries(values, 1, uniformLimits);
           const all = ruleMask(RULE_IDS);
           expect(wordFirings(series, all)).toEqual(scannerFirings(series, all));
         },
@@ -162,17 +167,7 @@ describe("word-parallel batch scan = point-by-point scanner", () => {
     ["an infinite point", [0, 1, Number.POSITIVE_INFINITY, 0], 1],
     ["a negative sigma", [0, 1, 2, 0], -1],
   ])("declines %s, which the scanner must refuse with its own error", (_, values, sigma) => {
-    const length = values.length;
-    const series: StatisticSeries = {
-      key: "x",
-      points: Float64Array.from(values),
-      center: 0,
-      ucl: new Float64Array(length).fill(3),
-      lcl: new Float64Array(length).fill(-3),
-      sigma: new Float64Array(length).fill(sigma),
-      floor: Number.NEGATIVE_INFINITY,
-      zoneRulesByDefault: true,
-    };
+    const series = fixedLimitSeries(values, sigma, false);
     expect(wordFirings(series, ruleMask(RULE_IDS))).toBeUndefined();
   });
 });
