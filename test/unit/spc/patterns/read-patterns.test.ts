@@ -7,9 +7,15 @@ import { createRng } from "@/src/spc/random";
 import { evaluateRules, resolveRuleSet } from "@/src/spc/rules";
 import type { ChartData, ChartType } from "@/src/spc/types";
 
+/** The chart with limits from the first `baselineEnd` subgroups (all when not given) and its signals. */
+function chartWithSignals(chart: ChartType, data: ChartData, ruleSet: string, baselineEnd?: number) {
+  const result = evaluateChart(data, estimateParameters(chart, data, baselineEnd === undefined ? {} : { baseline: { end: baselineEnd } }));
+  const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet(ruleSet)).signals);
+  return { result, signals };
+}
+
 function read(chart: ChartType, data: ChartData, baselineEnd: number, printedValues?: string[]) {
-  const result = evaluateChart(data, estimateParameters(chart, data, { baseline: { end: baselineEnd } }));
-  const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet("nelson")).signals);
+  const { result, signals } = chartWithSignals(chart, data, "nelson", baselineEnd);
   return readPatterns(result, signals, data, printedValues ? { printedValues } : {});
 }
 
@@ -59,8 +65,7 @@ describe("readPatterns on published data", () => {
   // scatter produces. The rule-1 signals stand, each to be investigated on its own, as Montgomery did.
   const counts = [12, 15, 8, 10, 4, 7, 16, 9, 14, 10, 5, 6, 17, 12, 22, 8, 10, 5, 13, 11, 20, 18, 24, 15, 9, 12, 7, 13, 9, 6];
   const data = attributesData(counts, counts.map(() => 50));
-  const result = evaluateChart(data, estimateParameters("p", data));
-  const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet("nelson")).signals);
+  const { result, signals } = chartWithSignals("p", data, "nelson");
 
   test("orange-juice cans: the two points beyond the limits are signals, not a mixture", () => {
     const beyond = signals.filter((signal) => signal.rule === "nelson-1").flatMap((signal) => signal.firing);
@@ -77,8 +82,7 @@ describe("readPatterns on constructed cases", () => {
     // Individuals chart with the Western Electric rules: the seed gives a series without any firing,
     // and without a signal there is nothing to read.
     const { data } = simulatePattern({ kind: "none", subgroupSize: 5, baseline: 40, monitoring: 10, onset: 45, size: 0 }, rng);
-    const result = evaluateChart(data, estimateParameters("xbar-r", data, { baseline: { end: 40 } }));
-    const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet("we")).signals);
+    const { result, signals } = chartWithSignals("xbar-r", data, "we", 40);
     expect(signals).toEqual([]);
     expect(readPatterns(result, signals, data)).toEqual([]);
   });
@@ -125,8 +129,7 @@ describe("patternReport", () => {
   test("lists each pattern's change point with its chart and kind", () => {
     const rng = createRng(5);
     const { data } = simulatePattern({ kind: "shift", subgroupSize: 5, baseline: 30, monitoring: 30, onset: 40, size: 3 }, rng);
-    const result = evaluateChart(data, estimateParameters("xbar-r", data, { baseline: { end: 30 } }));
-    const signals = result.statistics.flatMap((series) => evaluateRules(series, resolveRuleSet("nelson")).signals);
+    const { result, signals } = chartWithSignals("xbar-r", data, "nelson", 30);
     const report = patternReport(result, signals, data);
     expect(report.changePoints.length).toBe(report.patterns.filter((pattern) => pattern.changePoint).length);
     expect(report.changePoints[0]).toMatchObject({ chart: "xbar", kind: "shift", model: "step" });
