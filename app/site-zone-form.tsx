@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import { FormField, FormProblems } from "./characteristics/form-field";
+import { FormProblems, problemOf } from "./characteristics/form-field";
 import { enteredOr, type TFormState } from "./characteristics/setup-fields";
 import { setZoneFromForm } from "./site-zone-actions";
 
@@ -9,27 +9,38 @@ import { setZoneFromForm } from "./site-zone-actions";
 function SiteZone({ site, zones }: { site: { id: number; name: string; zone: string }; zones: readonly string[] }) {
   const [state, action, pending] = useActionState(setZoneFromForm, { ok: null } as TFormState);
   const issues = state.ok === false ? state.issues : [];
+  const problem = problemOf(issues, "zone");
+  // One form per site: ids carry the site's id so that each label finds its own field.
+  const id = `site-${site.id}-zone`;
   return (
     <form action={action} className="settings-form" noValidate aria-label={`Time zone of ${site.name}`}>
       {state.ok === true && <p role="status">{state.message}</p>}
       <FormProblems issues={issues} />
       <input type="hidden" name="siteId" value={site.id} />
-      <FormField
-        name="zone"
-        label={`Time zone of ${site.name}`}
-        hint={`Now ${site.zone}. Display and entry only: stored times stay in UTC, and so do the API and CSV files.`}
-        issues={issues}
-      >
-        {(attributes) => (
-          <select {...attributes} defaultValue={enteredOr(state, "zone", site.zone)}>
-            {zones.map((zone) => (
-              <option key={zone} value={zone}>
-                {zone}
-              </option>
-            ))}
-          </select>
+      <div className="field">
+        <label htmlFor={id}>Time zone of {site.name}</label>
+        <select
+          id={id}
+          name="zone"
+          defaultValue={enteredOr(state, "zone", site.zone)}
+          aria-invalid={problem !== ""}
+          aria-describedby={[`${id}-hint`, problem !== "" ? `${id}-error` : ""].filter(Boolean).join(" ")}
+        >
+          {zones.map((zone) => (
+            <option key={zone} value={zone}>
+              {zone}
+            </option>
+          ))}
+        </select>
+        <span className="field-hint" id={`${id}-hint`}>
+          Now {site.zone}. Display and entry only: stored times stay in UTC, and so do the API and CSV files.
+        </span>
+        {problem !== "" && (
+          <p className="field-error" id={`${id}-error`}>
+            Time zone {problem}
+          </p>
         )}
-      </FormField>
+      </div>
       <button type="submit" disabled={pending}>
         {pending ? "Saving…" : "Save time zone"}
       </button>

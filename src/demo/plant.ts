@@ -8,6 +8,8 @@
 import type { DemoProcess } from "./types";
 
 export const DEMO_SITE_NAME = "Tarnwick Demo Closures Plant";
+/** An invented plant in Great Britain: its pages show GMT in winter and BST in summer. */
+export const DEMO_SITE_ZONE = "Europe/London";
 export const DEMO_AREA_NAME = "Moulding hall";
 
 export const DEMO_PROCESSES: readonly DemoProcess[] = [

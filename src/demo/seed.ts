@@ -117,7 +117,7 @@ async function writeCharacteristic(
 
 async function writeScenario(transaction: Prisma.TransactionClient, scenario: DemoScenario) {
   const site = await transaction.site.create({
-    data: { name: scenario.siteName, areas: { create: { name: scenario.areaName } } },
+    data: { name: scenario.siteName, zone: scenario.siteZone, areas: { create: { name: scenario.areaName } } },
     select: { areas: { select: { id: true } } },
   });
   const areaId = site.areas[0]?.id;

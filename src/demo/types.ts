@@ -86,6 +86,8 @@ export interface DemoScenario {
   readonly start: Date;
   readonly end: Date;
   readonly siteName: string;
+  /** The site's time zone (IANA name): display and entry only, the scenario's times are instants. */
+  readonly siteZone: string;
   readonly areaName: string;
   readonly processes: readonly DemoProcess[];
   readonly characteristics: readonly DemoCharacteristic[];

@@ -60,6 +60,12 @@ describe("characteristic page", () => {
   test("a subgroup entered by hand far above the limits is answered at once with the rule in words", async () => {
     await page.getByRole("link", { name: "Enter a subgroup" }).click();
     await page.waitForURL(/\/entry$/);
+    // The time is typed as wall-clock time in the demo plant's zone, which the field names.
+    const time = page.getByLabel("Time (Europe/London)");
+    expect(await time.inputValue()).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d$/);
+    expect(await page.locator(`#${await time.getAttribute("id")}-hint`).textContent()).toBe(
+      "Wall-clock time in Europe/London, the plant's time zone; stored in UTC.",
+    );
     const inputs = page.locator('input[name^="values."]');
     const count = await inputs.count();
     expect(count).toBeGreaterThanOrEqual(1);

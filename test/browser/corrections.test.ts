@@ -82,7 +82,8 @@ describe("corrections page", () => {
     expect(await rows.first().textContent()).toMatch(
       new RegExp(
         `^${slip!.first}value ${position + 1}${escaped(String(typed))} → ${escaped(String(intended))}` +
-          `First two decimals swapped when typedTest inspector\\d+ \\w+ \\d{4}, \\d\\d:\\d\\d UTC$`,
+          // The demo plant is in Europe/London: the time is shown with GMT in winter, BST in summer.
+          `First two decimals swapped when typedTest inspector\\d+ \\w+ \\d{4}, \\d\\d:\\d\\d (GMT|BST)$`,
       ),
     );
     const directory = path.join(process.cwd(), "test-results");

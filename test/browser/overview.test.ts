@@ -37,6 +37,8 @@ describe("characteristics overview", () => {
       expect(text).toMatch(/Latest/);
       expect(text).not.toMatch(/No data yet/);
       expect(await card.locator("time").getAttribute("datetime")).toMatch(/^\d{4}-\d{2}-\d{2}T/);
+      // Shown in the demo plant's zone, Europe/London, with its name.
+      expect(await card.locator("time").textContent()).toMatch(/^\d{1,2} \w{3} \d{4}, \d\d:\d\d (GMT|BST)$/);
       expect(await card.locator("figcaption").textContent()).toMatch(/^Last \d+ values of the .+, from .+ to .+/);
       // Recharts draws the line as an SVG path once the client component has rendered.
       const line = card.locator(".sparkline-plot svg path.recharts-line-curve");
@@ -46,6 +48,14 @@ describe("characteristics overview", () => {
       expect(importPath).toMatch(/^\/characteristics\/\d+\/import$/);
       expect((await fetch(`${app!.baseUrl}${importPath}`)).status, `no dead link for ${name}`).toBe(200);
     }
+  });
+
+  test("the site's time zone is shown in its form, with what it changes and what it does not", async () => {
+    const zone = page.getByLabel("Time zone of Tarnwick Demo Closures Plant");
+    expect(await zone.inputValue()).toBe("Europe/London");
+    expect(await page.locator(`#${await zone.getAttribute("id")}-hint`).textContent()).toBe(
+      "Now Europe/London. Display and entry only: stored times stay in UTC, and so do the API and CSV files.",
+    );
   });
 
   test("every safety-related badge is described by the safety caution", async () => {

@@ -18,6 +18,7 @@ import { describe, expect, test } from "vitest";
 import { formatTime, zoneNameAt } from "@/src/components/format";
 import { formatOffset, offsetMinutesAt, resolveLocalTime, wallClockText } from "@/src/components/local-time";
 import { TIME_ZONES, ZLocalDateTime, ZTimeZone } from "@/shared/intake";
+import { DEMO_SITE_ZONE } from "@/src/demo/plant";
 
 const at = (iso: string) => Date.parse(iso);
 
@@ -161,6 +162,7 @@ describe("zone and wall-clock inputs", () => {
     expect(TIME_ZONES[0]).toBe("UTC");
     expect(ZTimeZone.parse(" Europe/Vienna ")).toBe("Europe/Vienna");
     expect(ZTimeZone.parse("UTC")).toBe("UTC");
+    expect(ZTimeZone.parse(DEMO_SITE_ZONE)).toBe("Europe/London");
     for (const wrong of ["Europe/Atlantis", "CEST", "+02:00", "", "europe/vienna"]) {
       expect(ZTimeZone.safeParse(wrong).error?.issues[0]?.message).toBe('must be an IANA time zone name such as "Europe/London", or "UTC"');
     }
