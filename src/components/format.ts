@@ -6,27 +6,29 @@
  */
 const valueFormat = new Intl.NumberFormat("en-GB", { maximumSignificantDigits: 4 });
 
-/** One formatter per zone: building an Intl.DateTimeFormat costs far more than formatting with it. */
-const timeFormats = new Map<string, Intl.DateTimeFormat>();
-
-function timeFormatFor(zone: string): Intl.DateTimeFormat {
-  let format = timeFormats.get(zone);
-  if (format === undefined) {
-    // dateStyle/timeStyle cannot be combined with timeZoneName, hence the fields one by one.
-    format = new Intl.DateTimeFormat("en-GB", {
-      day: "numeric",
-      month: "short",
-      year: "numeric",
-      hour: "2-digit",
-      minute: "2-digit",
-      hourCycle: "h23",
-      timeZone: zone,
-      timeZoneName: "short",
-    });
-    timeFormats.set(zone, format);
-  }
-  return format;
+/** One date-time format per zone, made on first use: building one costs far more than formatting with it. */
+export function formatPerZone(locale: string, options: Intl.DateTimeFormatOptions): (zone: string) => Intl.DateTimeFormat {
+  const formats = new Map<string, Intl.DateTimeFormat>();
+  return (zone) => {
+    let format = formats.get(zone);
+    if (format === undefined) {
+      format = new Intl.DateTimeFormat(locale, { ...options, timeZone: zone });
+      formats.set(zone, format);
+    }
+    return format;
+  };
 }
+
+// dateStyle/timeStyle cannot be combined with timeZoneName, hence the fields one by one.
+const timeFormatFor = formatPerZone("en-GB", {
+  day: "numeric",
+  month: "short",
+  year: "numeric",
+  hour: "2-digit",
+  minute: "2-digit",
+  hourCycle: "h23",
+  timeZoneName: "short",
+});
 
 export function formatValue(value: number): string {
   return valueFormat.format(value);

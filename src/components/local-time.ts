@@ -11,30 +11,21 @@
  * A chosen offset is only read for such a repeated time: anywhere else the zone decides the offset alone.
  * Pure: no clock, no I/O.
  */
-import { zoneNameAt } from "./format";
+import { formatPerZone, zoneNameAt } from "./format";
 
 const MINUTE = 60_000;
 const DAY = 24 * 60 * MINUTE;
 
-const wallClockFormats = new Map<string, Intl.DateTimeFormat>();
-
-function wallClockFormatFor(zone: string): Intl.DateTimeFormat {
-  let format = wallClockFormats.get(zone);
-  if (format === undefined) {
-    format = new Intl.DateTimeFormat("en-US", {
-      year: "numeric",
-      month: "2-digit",
-      day: "2-digit",
-      hour: "2-digit",
-      minute: "2-digit",
-      second: "2-digit",
-      hourCycle: "h23",
-      timeZone: zone,
-    });
-    wallClockFormats.set(zone, format);
-  }
-  return format;
-}
+/** Numeric fields only, read back with formatToParts; the locale does not matter for them. */
+const wallClockFormatFor = formatPerZone("en-US", {
+  year: "numeric",
+  month: "2-digit",
+  day: "2-digit",
+  hour: "2-digit",
+  minute: "2-digit",
+  second: "2-digit",
+  hourCycle: "h23",
+});
 
 /** The wall-clock reading of `instant` in `zone`, as milliseconds of the same reading taken in UTC. */
 function wallClockMs(instant: number, zone: string): number {

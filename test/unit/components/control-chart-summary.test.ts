@@ -74,6 +74,12 @@ describe("summarizeChart", () => {
     });
   });
 
+  test("the latest firing's time is written in the site's zone (1 March: CET, UTC+1, from memory)", () => {
+    expect(summarizeChart(view([signal(3, 6)]), "Europe/Vienna").detail).toBe(
+      "1 open signal, latest: 1 point beyond the control limits (nelson-1) at 1 Mar 2026, 15:20 CET",
+    );
+  });
+
   test("out of control when the latest point fired", () => {
     const summary = summarizeChart(view([signal(1, 9)]), "UTC");
     expect(summary.inControl).toBe(false);
