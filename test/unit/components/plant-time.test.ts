@@ -17,6 +17,7 @@
 import { describe, expect, test } from "vitest";
 import { formatTime, zoneNameAt } from "@/src/components/format";
 import { formatOffset, offsetMinutesAt, resolveLocalTime, wallClockText } from "@/src/components/local-time";
+import { withTimeProblem, zonedTimeField } from "@/app/characteristics/setup-fields";
 import { TIME_ZONES, ZLocalDateTime, ZTimeZone } from "@/shared/intake";
 import { DEMO_SITE_ZONE } from "@/src/demo/plant";
 
@@ -176,5 +177,45 @@ describe("zone and wall-clock inputs", () => {
     for (const impossible of ["2026-02-29T06:00", "2026-04-31T06:00", "2026-03-01T24:00", "2026-03-01T06:60"]) {
       expect(ZLocalDateTime.safeParse(impossible).error?.issues[0]?.message).toBe("is not a date and time on the calendar");
     }
+  });
+});
+
+describe("a form's zoned time field", () => {
+  const form = (fields: Record<string, string>) => {
+    const data = new FormData();
+    for (const [name, value] of Object.entries(fields)) data.set(name, value);
+    return data;
+  };
+
+  test("a wall-clock time becomes the UTC instant the schema reads", () => {
+    expect(zonedTimeField(form({ timestamp: "2026-06-01T16:05" }), "timestamp", "Europe/Vienna")).toEqual({ value: "2026-06-01T14:05:00.000Z" });
+    expect(zonedTimeField(form({}), "timestamp", "Europe/Vienna")).toEqual({ value: undefined });
+  });
+
+  test("a skipped time is the field's problem, replacing the schema's word on the same field", () => {
+    const time = zonedTimeField(form({ occurredAt: "2026-03-29T02:30" }), "occurredAt", "Europe/Vienna");
+    expect(withTimeProblem(time, [{ path: "occurredAt", message: "is required" }, { path: "kind", message: "is not valid" }])).toEqual({
+      issues: [
+        {
+          path: "occurredAt",
+          message: "does not exist in Europe/Vienna: the clocks jump from 02:00 to 03:00 on 29 Mar 2026. Enter the time the clock showed after the jump.",
+        },
+        { path: "kind", message: "is not valid" },
+      ],
+    });
+  });
+
+  test("a repeated time offers its two readings until one comes back as <name>.offset", () => {
+    const refused = withTimeProblem(zonedTimeField(form({ timestamp: "2026-10-25T02:30" }), "timestamp", "Europe/Vienna"), []);
+    expect(refused.timeChoices?.timestamp?.map((choice) => choice.offset)).toEqual(["+02:00", "+01:00"]);
+    expect(zonedTimeField(form({ timestamp: "2026-10-25T02:30", "timestamp.offset": "+01:00" }), "timestamp", "Europe/Vienna")).toEqual({
+      value: "2026-10-25T01:30:00.000Z",
+    });
+  });
+
+  test("text that is no calendar time is named as such", () => {
+    expect(zonedTimeField(form({ timestamp: "2026-02-30T06:00" }), "timestamp", "UTC")).toEqual({
+      issue: { path: "timestamp", message: "is not a date and time on the calendar" },
+    });
   });
 });
