@@ -13,7 +13,7 @@ function SiteZone({ site, zones }: { site: { id: number; name: string; zone: str
   // One form per site: ids carry the site's id so that each label finds its own field.
   const id = `site-${site.id}-zone`;
   return (
-    <form action={action} className="settings-form" noValidate aria-label={`Time zone of ${site.name}`}>
+    <form action={action} className="settings-form" noValidate aria-label={`Plant time for ${site.name}`}>
       {state.ok === true && <p role="status">{state.message}</p>}
       <FormProblems issues={issues} />
       <input type="hidden" name="siteId" value={site.id} />

@@ -51,7 +51,7 @@ describe("characteristics overview", () => {
   });
 
   test("the site's time zone is shown in its form, with what it changes and what it does not", async () => {
-    const zone = page.getByLabel("Time zone of Tarnwick Demo Closures Plant");
+    const zone = page.getByRole("combobox", { name: "Time zone of Tarnwick Demo Closures Plant" });
     expect(await zone.inputValue()).toBe("Europe/London");
     expect(await page.locator(`#${await zone.getAttribute("id")}-hint`).textContent()).toBe(
       "Now Europe/London. Display and entry only: stored times stay in UTC, and so do the API and CSV files.",
