@@ -19,6 +19,7 @@
 import type Database from "better-sqlite3";
 import { CHART_STATISTIC_KEYS, type ChartType, type RuleId, type StatisticKey } from "@/shared/constants";
 import { chartTypeOf } from "@/src/characteristics/setup";
+import { storedTimeOf } from "@/src/db/stored-time";
 import { AppError } from "@/src/errors";
 import { chartParametersOf, limitSegments, segmentAt, summarySeries, type TSegment, type TSummary } from "@/src/limits";
 import type { TLimitSetParameters } from "@/src/limits/parameters";
@@ -70,7 +71,6 @@ const SQL = {
     'SELECT "id", "version", "center", "sigma", "subgroupSize", "ewmaLambda", "ewmaWidth", "cusumK", "cusumH", ' +
     '"baselineStart", "baselineEnd", "baselineUsed", "appliesFrom" FROM "LimitSet" WHERE "characteristicId" = ? ORDER BY "version"',
   // The kept sequences go in as one JSON array: one statement, whatever their number.
-  timestamps: 'SELECT "sequence", "timestamp" FROM "Subgroup" WHERE "characteristicId" = ? AND "sequence" IN (SELECT "value" FROM json_each(?))',
   summaryAt:
     'SELECT "id", "sequence", "timestamp", "mean", "spread", "count", "size", "ewma", "cusumUpper", "cusumLower" FROM "Subgroup" ' +
     'WHERE "characteristicId" = ? AND "sequence" = ?',
@@ -164,12 +164,6 @@ function sameLimits(first: TPointLimits, second: TPointLimits): boolean {
     first.upperWarning === second.upperWarning &&
     first.lowerWarning === second.lowerWarning
   );
-}
-
-/** The stored time of each of the given sequences. */
-function readTimestamps(database: Database.Database, characteristicId: number, sequences: readonly number[]): Map<number, string> {
-  const rows = database.prepare(SQL.timestamps).raw(true).all(characteristicId, JSON.stringify(sequences)) as [number, string][];
-  return new Map(rows);
 }
 
 /**
@@ -283,10 +277,8 @@ export function loadChartView(database: Database.Database, characteristicId: num
         keep: [...keepEverywhere, ...firedAt.get(key)!.keys()].map((sequence) => sequence - from),
       }),
     );
-    const keptSequences = [...new Set(decimations.flatMap((decimation) => decimation.indices))]
-      .sort((a, b) => a - b)
-      .map((index) => index + from);
-    const timestamps = readTimestamps(database, characteristicId, keptSequences);
+    const times = cachedColumn(database, "time", characteristicId, { first, last }, { from, to });
+    const isoTimeAt = (sequence: number) => new Date(times[sequence - from]!).toISOString();
     // Whole rows only where needed: a new case of limits, a corrected point.
     const summaryStatement = database.prepare(SQL.summaryAt);
     const rowAt = (sequence: number) => summaryStatement.get(characteristicId, sequence) as TSummaryRow;
@@ -317,7 +309,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
         const value = plotted[index]!;
         const point: TChartPoint = {
           sequence,
-          timestamp: isoTime(timestamps.get(sequence)!),
+          timestamp: isoTimeAt(sequence),
           value: Number.isNaN(value) ? null : value,
           version: segment?.limitSet.version ?? null,
         };
@@ -345,7 +337,8 @@ export function loadChartView(database: Database.Database, characteristicId: num
     });
 
     const timestampOf = (sequence: number): string | null => {
-      const stored = timestamps.get(sequence) ?? (database.prepare(SQL.timestampAt).pluck(true).get(characteristicId, sequence) as string | undefined);
+      if (sequence >= from && sequence <= to) return isoTimeAt(sequence);
+      const stored = database.prepare(SQL.timestampAt).pluck(true).get(characteristicId, sequence) as string | undefined;
       return stored === undefined ? null : isoTime(stored);
     };
     const latestRows = database.prepare(SQL.listedSignals).all(characteristicId, from, to) as TSignalRow[];
@@ -376,7 +369,7 @@ export function loadChartView(database: Database.Database, characteristicId: num
       statistics,
       signalCounts: { total: firingRows.length, open: openSignals },
       signals,
-      events: eventsIn(database, characteristic, timestamps.get(from)!, timestamps.get(to)!),
+      events: eventsIn(database, characteristic, storedTimeOf(times[0]!), storedTimeOf(times[to - from]!)),
     };
   })();
 }
