@@ -6,7 +6,8 @@
  * connection settings (src/db/sqlite-adapter.ts: WAL; better-sqlite3's SQLite then defaults to
  * synchronous = NORMAL, printed below: no disk flush at every commit). Median wall time and median CPU
  * time of this process over 250 appends each, interleaved so that both see the same machine load; the
- * machine's load average is printed beside them. Budget 5 ms (wall) at 100,000.
+ * machine's load average is printed beside them. Budget 5 ms (wall) at 100,000. Runs as the shipped bundle
+ * (./support/bundled.ts).
  *
  * Not timed: building the histories. Their rows are written directly with better-sqlite3 in one
  * transaction, with the summaries computed by the service's own `summarize`, then limits are frozen from
@@ -27,6 +28,9 @@ import { storedTimeOf } from "../src/db/stored-time";
 import { reviseLimits } from "../src/limits";
 import { createRng } from "../src/spc/random";
 import { appendSubgroups, summarize } from "../src/subgroups";
+import { loadedAs, runBundled } from "./support/bundled";
+
+await runBundled(import.meta.url);
 
 const HISTORIES = [1_000, 100_000] as const;
 const TIMED_APPENDS = 250;
@@ -80,6 +84,7 @@ try {
     }
   }
   const medians = characteristics.map((characteristic) => ({ wall: median(characteristic.wall), cpu: median(characteristic.cpu) }));
+  console.log(`loaded as: ${loadedAs()}`);
   console.log(`synchronous = ${LEVELS[Number(level)] ?? String(level)}, load average ${loadavg()[0]!.toFixed(1)} on ${os.cpus().length} cores:`);
   for (const [index, characteristic] of characteristics.entries()) {
     console.log(
