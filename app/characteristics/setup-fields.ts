@@ -1,7 +1,7 @@
 // Form fields of the characteristic setup form as the input ZCharacteristicInput parses; empty optional
 // fields are left out, numbers that do not read as numbers stay text so the schema names them.
 import { ZLocalDateTime } from "@/shared/intake";
-import { resolveLocalTime, type TOffsetChoice } from "@/src/components/local-time";
+import { resolveLocalTime, type TOffsetChoice } from "@/src/time/local-time";
 
 export type TFormIssues = readonly { path: string; message: string }[];
 

@@ -1,6 +1,6 @@
 // A time typed as wall-clock time in the site's zone, the zone named beside it; after a refusal for a time
 // the clocks showed twice, the two readings to choose from (sent back as `<name>.offset`).
-import type { TOffsetChoice } from "@/src/components/local-time";
+import type { TOffsetChoice } from "@/src/time/local-time";
 import { problemOf } from "./form-field";
 import type { TFormIssues } from "./setup-fields";
 

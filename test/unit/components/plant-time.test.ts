@@ -16,7 +16,7 @@
 // EU rule itself against Intl for 2024-2030. Intl applies the IANA tz database as the runtime's ICU holds it.
 import { describe, expect, test } from "vitest";
 import { formatTime, zoneNameAt } from "@/src/components/format";
-import { formatOffset, offsetMinutesAt, resolveLocalTime, wallClockText } from "@/src/components/local-time";
+import { formatOffset, offsetMinutesAt, resolveLocalTime, wallClockText } from "@/src/time/local-time";
 import { withTimeProblem, zonedTimeField } from "@/app/characteristics/setup-fields";
 import { TIME_ZONES, ZLocalDateTime, ZTimeZone } from "@/shared/intake";
 import { DEMO_SITE_ZONE } from "@/src/demo/plant";

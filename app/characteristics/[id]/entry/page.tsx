@@ -2,7 +2,7 @@
 import Link from "next/link";
 import { connection } from "next/server";
 import { SAFETY_CAUTION } from "@/shared/constants";
-import { wallClockText } from "@/src/components/local-time";
+import { wallClockText } from "@/src/time/local-time";
 import { prisma } from "@/src/db/client";
 import { zoneOfProcess } from "@/src/sites/zone";
 import { findCharacteristic } from "../../find-characteristic";

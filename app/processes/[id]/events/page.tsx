@@ -5,7 +5,7 @@ import { connection } from "next/server";
 import { ZIdParams } from "@/shared/api";
 import { EVENT_KIND_LABELS, type EventKind } from "@/shared/constants";
 import { formatTime, formatValue } from "@/src/components/format";
-import { wallClockText } from "@/src/components/local-time";
+import { wallClockText } from "@/src/time/local-time";
 import { prisma } from "@/src/db/client";
 import { isAppError } from "@/src/errors";
 import { eventsFor } from "@/src/events";
