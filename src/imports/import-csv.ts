@@ -17,6 +17,7 @@ import { AppError, parseInput } from "@/src/errors";
 import type { CsvProblem } from "@/src/io/csv/errors";
 import type { CsvSeparator } from "@/src/io/csv/read-table";
 import { reevaluateSignals } from "@/src/signals";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { createAssembler, type TRejectedRow } from "./assemble";
 import { ZImportOptions, type TImportMode, type TImportOptionsInput } from "./options";
 import { rejectedRowsCsv, writeRejectedRows } from "./rejected-rows";
@@ -74,6 +75,8 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
   const { mapping, mode } = options;
   const characteristic = await getCharacteristic(db, request.characteristicId);
   const { chartType, subgroupSize } = characteristic;
+  // Times without a zone in the site's zone: the characteristic's process → area → site.
+  const timestampReading = { ...options, zone: options.siteZone ? await zoneOfProcess(db, characteristic.processId) : undefined };
   const createdAt = storedTime(request.now.toISOString());
 
   // The process's other writers wait at the gate until this transaction ends (src/db/write-gate.ts);
@@ -138,7 +141,7 @@ export async function importCsv(db: PrismaClient, database: Database.Database, r
           report(found);
           return;
         }
-        readRow = createRowReader(mapping, fileSeparator === ";", options);
+        readRow = createRowReader(mapping, fileSeparator === ";", timestampReading);
       },
       onRow({ row, written, problems: shapeProblems }) {
         if (readRow === undefined) return;

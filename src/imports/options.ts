@@ -1,7 +1,8 @@
 /**
  * What a person chooses for a CSV import: which file columns hold what (the column mapping), how to
- * read times written without a zone, how to read slash dates, and whether rows with problems stop the
- * whole import. zod only, so the browser form and the server check the same schema.
+ * read times written without a zone (at a fixed UTC offset, or as wall-clock time in the site's zone),
+ * how to read slash dates, and whether rows with problems stop the whole import. zod only, so the
+ * browser form and the server check the same schema.
  */
 import { z } from "zod";
 import { VARIABLES_CHART_TYPES, type ChartType } from "@/shared/constants";
@@ -91,13 +92,19 @@ export const ZImportOptions = z
   .object({
     mapping: ZColumnMapping,
     mode: z.enum(IMPORT_MODES).default("all-or-nothing"),
-    /** Offset of times written without a zone; without it such times are refused. */
+    /** Offset of times written without a zone; without it (or siteZone) such times are refused. */
     utcOffset: z.string().regex(UTC_OFFSET_PATTERN, { error: 'must be "Z" or an offset like +01:00 or -05:00' }).optional(),
+    /** Times written without a zone are wall-clock time in the site's time zone, summer time included. */
+    siteZone: z.boolean().default(false),
     dayMonthOrder: z.enum(DAY_MONTH_ORDERS).optional(),
     fileName: z.string().trim().min(1, { error: "is required" }).max(200),
     /** Check everything and report what would happen, writing nothing. */
     dryRun: z.boolean().default(false),
   })
-  .strict();
+  .strict()
+  .refine((options) => !(options.siteZone && options.utcOffset !== undefined), {
+    path: ["siteZone"],
+    error: "choose either the site's time zone or a fixed UTC offset for times without a zone, not both",
+  });
 export type TImportOptions = z.infer<typeof ZImportOptions>;
 export type TImportOptionsInput = z.input<typeof ZImportOptions>;

@@ -3,22 +3,39 @@
  *
  * Accepted forms (seconds and, for ISO, fractions of a second optional; "T" or a space between date and time):
  * - ISO 8601 with a zone: 2026-03-01T06:00:00Z, 2026-03-01 06:00+01:00, 2026-03-01T06:00:00.250-0500;
- * - ISO 8601 without a zone: 2026-03-01 06:00:00, read at the UTC offset the person states;
- * - day.month.year: 01.03.2026 06:00, the dotted order being day first by convention, at the stated offset;
- * - slash dates: 03/04/2026 06:00, only when the person states day-first or month-first (and an offset).
+ * - ISO 8601 without a zone: 2026-03-01 06:00:00, read at the UTC offset the person states, or as
+ *   wall-clock time in the site's time zone;
+ * - day.month.year: 01.03.2026 06:00, the dotted order being day first by convention, read as above;
+ * - slash dates: 03/04/2026 06:00, only when the person states day-first or month-first (and how to read
+ *   times without a zone).
  * Anything else is refused with the forms listed, never guessed at: a date alone, two-digit years,
- * impossible dates (31.04.2026), hours past 23, leap seconds. A fixed offset (not a named zone) is used
- * on purpose: files whose local times cross a summer-time change must carry the offset in each cell.
+ * impossible dates (31.04.2026), hours past 23, leap seconds.
+ *
+ * Wall-clock time in a zone (`readWallClock`, src/time/local-time.ts, the forms' conversion): a time the
+ * clocks skip is refused with the jump named; a time they show twice takes the earlier of its two
+ * instants that is not before the previous row's time (rows are in time order, so the clocks going back
+ * show in the file as times going back), and is refused when neither is.
  */
+import { createWallClockReader } from "@/src/time/local-time";
 import type { TDayMonthOrder } from "./options";
 
 export interface TTimestampReading {
-  /** Offset for times without a zone ("Z", "+01:00"); undefined refuses them. */
+  /** Offset for times without a zone ("Z", "+01:00"). */
   readonly utcOffset?: string;
+  /** IANA time zone whose wall-clock time the times without a zone are. With neither, such times are refused. */
+  readonly zone?: string;
   readonly dayMonthOrder?: TDayMonthOrder;
 }
 
 export type TTimestampResult = { readonly ok: true; readonly milliseconds: number } | { readonly ok: false; readonly message: string };
+
+/** The instant of a wall-clock reading written without a zone (held as UTC milliseconds of the same reading). */
+type TLocalTimeReader = (wall: number, text: string) => TTimestampResult;
+
+/** How times without a zone are read: at a fixed offset ("+01:00"), by a zone's rules, or refused. */
+type TZoneless = string | TLocalTimeReader | undefined;
+
+const MINUTE = 60_000;
 
 const TIME = String.raw`(\d{2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,9}))?)?`;
 const ISO = new RegExp(String.raw`^(\d{4})-(\d{2})-(\d{2})[T ]${TIME}\s*(Z|[+-]\d{2}:?\d{2})?$`, "i");
@@ -52,8 +69,8 @@ interface Parts {
   readonly time: readonly (string | undefined)[];
 }
 
-/** Milliseconds for a wall-clock reading at a UTC offset, or the reason it is not a real time. */
-function toMilliseconds(text: string, parts: Parts, zone: string): TTimestampResult {
+/** Milliseconds for a wall-clock reading at a UTC offset or in a zone, or the reason it is not a real time. */
+function toMilliseconds(text: string, parts: Parts, zone: string | TLocalTimeReader): TTimestampResult {
   const [hourText, minuteText, secondText, fractionText] = parts.time;
   const hour = Number(hourText);
   const minute = Number(minuteText);
@@ -65,10 +82,12 @@ function toMilliseconds(text: string, parts: Parts, zone: string): TTimestampRes
     return { ok: false, message: `"${text}" names day ${day} of ${MONTH_NAMES[month - 1]} ${year}, which has ${daysInMonth} days` };
   }
   if (hour > 23 || minute > 59 || second > 59) return { ok: false, message: `"${text}" is not a time of day (hours 00-23, minutes and seconds 00-59)` };
+  const fraction = fractionText === undefined ? 0 : Number(`0.${fractionText}`) * 1000;
+  const wall = utcMilliseconds(year, month, day) + ((hour * 60 + minute) * 60 + second) * 1000 + Math.round(fraction);
+  if (typeof zone !== "string") return zone(wall, text);
   const offset = offsetMinutes(zone);
   if (Math.abs(offset) > 14 * 60) return { ok: false, message: `"${text}" has the offset ${zone}, outside -12:00 to +14:00` };
-  const fraction = fractionText === undefined ? 0 : Number(`0.${fractionText}`) * 1000;
-  return { ok: true, milliseconds: utcMilliseconds(year, month, day) + ((hour * 60 + minute) * 60 + second) * 1000 + Math.round(fraction) - offset * 60_000 };
+  return { ok: true, milliseconds: wall - offset * MINUTE };
 }
 
 /** Milliseconds at 00:00 UTC of a calendar day. `Date.UTC` would read years 0-99 as 1900-1999. */
@@ -81,7 +100,7 @@ function utcMilliseconds(year: number, month: number, day: number): number {
 function noZone(text: string): TTimestampResult {
   return {
     ok: false,
-    message: `"${text}" has no time zone: state the UTC offset the file's times are written in (e.g. +01:00), or write ISO 8601 with a zone`,
+    message: `"${text}" has no time zone: state the UTC offset the file's times are written in (e.g. +01:00) or read them in the site's time zone, or write ISO 8601 with a zone`,
   };
 }
 
@@ -91,26 +110,60 @@ function slashOrderProblem(text: string, first: number, second: number): string 
   return `"${text}" is ambiguous: it reads as ${first} ${MONTH_NAMES[second - 1] ?? "?"} (day first) or ${MONTH_NAMES[first - 1] ?? "?"} ${second} (month first); choose the day/month order for this file`;
 }
 
+/**
+ * Times without a zone as wall-clock time in `zone`. A repeated time takes the earlier of its two instants
+ * that is not before `previous()`, the time of the previous row read.
+ */
+function zoneReader(zone: string, previous: () => number): TLocalTimeReader {
+  const readWallClock = createWallClockReader(zone);
+  return (wall, text) => {
+    const reading = readWallClock(wall);
+    if (reading.kind === "exact") return { ok: true, milliseconds: wall - reading.offset * MINUTE };
+    if (reading.kind === "skipped") return { ok: false, message: `"${text}" ${reading.problem}` };
+    const [earlier, later] = reading.offsets.map((offset) => wall - offset * MINUTE) as [number, number];
+    const after = previous();
+    if (earlier >= after) return { ok: true, milliseconds: earlier };
+    if (later >= after) return { ok: true, milliseconds: later };
+    const iso = (milliseconds: number) => new Date(milliseconds).toISOString();
+    return {
+      ok: false,
+      message: `"${text}" ${reading.problem}, and both its times (${iso(earlier)} and ${iso(later)}) are before the previous row's ${iso(after)}: rows must be in time order`,
+    };
+  };
+}
+
+const NO_PREVIOUS_ROW = () => -Infinity;
+
+/** How `reading` reads times without a zone; a repeated time in a zone takes its earlier instant. */
+function zonelessOf(reading: TTimestampReading): TZoneless {
+  return reading.utcOffset ?? (reading.zone === undefined ? undefined : zoneReader(reading.zone, NO_PREVIOUS_ROW));
+}
+
+/** One cell on its own: a repeated wall-clock time takes its earlier instant (there is no previous row). */
 export function readTimestamp(text: string, reading: TTimestampReading): TTimestampResult {
+  return readCell(text, reading, zonelessOf(reading));
+}
+
+function readCell(text: string, reading: TTimestampReading, zoneless: TZoneless): TTimestampResult {
   const iso = ISO.exec(text);
   if (iso !== null) {
-    const zone = iso[8] ?? reading.utcOffset;
+    const zone = iso[8] ?? zoneless;
     if (zone === undefined) return noZone(text);
     return toMilliseconds(text, { year: Number(iso[1]), month: Number(iso[2]), day: Number(iso[3]), time: iso.slice(4, 8) }, zone);
   }
   const dotted = DOTTED.exec(text);
   if (dotted !== null) {
-    if (reading.utcOffset === undefined) return noZone(text);
-    return toMilliseconds(text, { day: Number(dotted[1]), month: Number(dotted[2]), year: Number(dotted[3]), time: dotted.slice(4, 8) }, reading.utcOffset);
+    if (zoneless === undefined) return noZone(text);
+    return toMilliseconds(text, { day: Number(dotted[1]), month: Number(dotted[2]), year: Number(dotted[3]), time: dotted.slice(4, 8) }, zoneless);
   }
   const slashed = SLASHED.exec(text);
   if (slashed !== null) {
     const first = Number(slashed[1]);
     const second = Number(slashed[2]);
     if (reading.dayMonthOrder === undefined) return { ok: false, message: slashOrderProblem(text, first, second) };
-    if (reading.utcOffset === undefined) return noZone(text);
+    if (zoneless === undefined) return noZone(text);
     const [day, month] = reading.dayMonthOrder === "day-first" ? [first, second] : [second, first];
-    return toMilliseconds(text, { day, month, year: Number(slashed[3]), time: slashed.slice(4, 8) }, reading.utcOffset);
+    return toMilliseconds(text, { day, month, year: Number(slashed[3]), time: slashed.slice(4, 8) }, zoneless);
   }
   if (text === "") return { ok: false, message: "is empty: a timestamp is required" };
   if (DATE_ONLY.test(text)) return { ok: false, message: `"${text}" is a date without a time of day: write the time too, e.g. ${FORMS}` };
@@ -140,7 +193,8 @@ const LETTER_Z = 90;
  * (rows in time order mostly share the previous row's day) and the time of day is read from character
  * codes, instead of a regular expression with eight groups per cell. Any text the fast path does not accept
  * whole, valid or not, goes to `readTimestamp`, which gives the same result for what the fast path accepts
- * (property test in test/unit/imports/timestamps.test.ts) and every message.
+ * (property test in test/unit/imports/timestamps.test.ts) and every message. Times in a zone are read
+ * with one zone reading per wall-clock hour (createWallClockReader) against the previous row's time.
  */
 export function createTimestampReader(reading: TTimestampReading): (text: string) => TTimestampResult {
   let datePart = "";
@@ -168,8 +222,19 @@ export function createTimestampReader(reading: TTimestampReading): (text: string
     return dayStart + ((hour * 60 + minute) * 60 + second) * 1000 + millisecond;
   }
 
+  if (reading.zone === undefined || reading.utcOffset !== undefined) {
+    const zoneless = reading.utcOffset;
+    return (text) => {
+      const milliseconds = fast(text);
+      return milliseconds === undefined ? readCell(text, reading, zoneless) : { ok: true, milliseconds };
+    };
+  }
+  let previous = -Infinity;
+  const inZone = zoneReader(reading.zone, () => previous);
   return (text) => {
     const milliseconds = fast(text);
-    return milliseconds === undefined ? readTimestamp(text, reading) : { ok: true, milliseconds };
+    const result = milliseconds === undefined ? readCell(text, reading, inZone) : ({ ok: true, milliseconds } as const);
+    if (result.ok) previous = result.milliseconds;
+    return result;
   };
 }

@@ -41,10 +41,11 @@ export function openImportTestDatabase(label: string): TImportHarness {
 
 let processCounter = 0;
 
-/** A new characteristic (in a new process) with no limits yet. */
-export async function createTestCharacteristic(prisma: PrismaClient, chartType: ChartType, subgroupSize: number): Promise<number> {
+/** A new characteristic (in a new process) with no limits yet, at a site in `zone`. */
+export async function createTestCharacteristic(prisma: PrismaClient, chartType: ChartType, subgroupSize: number, zone = "UTC"): Promise<number> {
   processCounter += 1;
-  const site = await prisma.site.upsert({ where: { name: "Test site" }, update: {}, create: { name: "Test site" } });
+  const name = zone === "UTC" ? "Test site" : `Test site in ${zone}`;
+  const site = await prisma.site.upsert({ where: { name }, update: {}, create: { name, zone } });
   const area = await prisma.area.upsert({ where: { siteId_name: { siteId: site.id, name: "Hall" } }, update: {}, create: { siteId: site.id, name: "Hall" } });
   const process = await prisma.process.create({ data: { areaId: area.id, name: `Press ${processCounter}`, kind: "injection-moulding press" } });
   const characteristic = await prisma.characteristic.create({
