@@ -16,7 +16,12 @@ import { sendFile, type TSendProgress } from "./send-file";
 
 interface ImportFormProps {
   readonly characteristic: { readonly id: number; readonly name: string; readonly chartType: ChartType; readonly subgroupSize: number };
+  /** The site's time zone (IANA name or "UTC"). */
+  readonly zone: string;
 }
+
+/** The times select's value for "in the site's zone"; "" is "not stated", any other value one of OFFSETS. */
+const SITE_ZONE = "site";
 
 const OFFSETS = ["Z", ...Array.from({ length: 27 }, (_, index) => index - 12).filter((hours) => hours !== 0).map((hours) => `${hours < 0 ? "-" : "+"}${String(Math.abs(hours)).padStart(2, "0")}:00`), "+05:30"].sort(
   (a, b) => offsetMinutes(a) - offsetMinutes(b),
@@ -40,11 +45,12 @@ function progressText(progress: TSendProgress): { fraction: number; text: string
   return { fraction: 0.5 + fraction / 2, text: `Reading and checking rows: ${Math.floor(fraction * 100)}% (${progress.rowsRead.toLocaleString("en")} rows)` };
 }
 
-export function ImportForm({ characteristic }: ImportFormProps) {
+export function ImportForm({ characteristic, zone }: ImportFormProps) {
   const [file, setFile] = useState<File | undefined>();
   const [preview, setPreview] = useState<TFilePreview | undefined>();
   const [mapping, setMapping] = useState<TColumnMapping | undefined>();
-  const [utcOffset, setUtcOffset] = useState("");
+  // A plant whose clocks follow summer time exports wall-clock time: read it in the zone unless told otherwise.
+  const [zoneless, setZoneless] = useState(zone === "UTC" ? "" : SITE_ZONE);
   const [dayMonthOrder, setDayMonthOrder] = useState<"" | TDayMonthOrder>("");
   const [progress, setProgress] = useState<{ fraction: number; text: string } | undefined>();
   const [announcement, setAnnouncement] = useState("");
@@ -77,7 +83,7 @@ export function ImportForm({ characteristic }: ImportFormProps) {
         mode,
         dryRun,
         fileName: file.name,
-        ...(utcOffset === "" ? {} : { utcOffset }),
+        ...(zoneless === SITE_ZONE ? { siteZone: true } : zoneless === "" ? {} : { utcOffset: zoneless }),
         ...(dayMonthOrder === "" ? {} : { dayMonthOrder }),
       },
       (update) => {
@@ -147,14 +153,17 @@ export function ImportForm({ characteristic }: ImportFormProps) {
             <legend>Times</legend>
             <div className={styles.grid}>
               <label className={styles.field}>
-                <span>Times written without a zone are at UTC offset</span>
-                <select value={utcOffset} onChange={(event) => setUtcOffset(event.target.value)}>
+                <span>Times written without a zone are</span>
+                <select value={zoneless} onChange={(event) => setZoneless(event.target.value)}>
                   <option value="">Not stated: such times are refused</option>
-                  {OFFSETS.map((offset) => (
-                    <option key={offset} value={offset}>
-                      {offset === "Z" ? "UTC (+00:00)" : offset}
-                    </option>
-                  ))}
+                  {zone !== "UTC" && <option value={SITE_ZONE}>Clock time in {zone}, the site&apos;s zone (summer time followed)</option>}
+                  <optgroup label="At a fixed UTC offset">
+                    {OFFSETS.map((offset) => (
+                      <option key={offset} value={offset}>
+                        {offset === "Z" ? "UTC (+00:00)" : offset}
+                      </option>
+                    ))}
+                  </optgroup>
                 </select>
               </label>
               <label className={styles.field}>

@@ -1,12 +1,15 @@
 // CSV import into one characteristic: thin server page (load the characteristic, render the workflow).
 import Link from "next/link";
 import { connection } from "next/server";
+import { prisma } from "@/src/db/client";
+import { zoneOfProcess } from "@/src/sites/zone";
 import { findCharacteristic } from "../../find-characteristic";
 import { ImportForm } from "./import-form";
 
 export default async function ImportPage({ params }: { params: Promise<{ id: string }> }) {
   await connection();
   const characteristic = await findCharacteristic(params);
+  const zone = await zoneOfProcess(prisma, characteristic.processId);
   const size = characteristic.subgroupSize === 1 ? "one value per point" : `subgroups of ${characteristic.subgroupSize}`;
   return (
     <>
@@ -20,6 +23,7 @@ export default async function ImportPage({ params }: { params: Promise<{ id: str
       </p>
       <ImportForm
         characteristic={{ id: characteristic.id, name: characteristic.name, chartType: characteristic.chartType, subgroupSize: characteristic.subgroupSize }}
+        zone={zone}
       />
     </>
   );
