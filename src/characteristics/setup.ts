@@ -5,6 +5,7 @@
  * Services take the Prisma client as their first argument (see DEVELOPERS.md, "Services and server-only").
  */
 import { CHART_TYPES, type ChartType } from "@/shared/constants";
+import type { TCharacteristicChange } from "@/shared/api";
 import { ZCharacteristicInput, type TCharacteristicInput } from "@/shared/intake";
 import type { z } from "zod";
 import type { PrismaClient } from "@/src/db/connect";
@@ -123,6 +124,37 @@ export async function updateCharacteristic(
     { timeout: REEVALUATION_TIMEOUT_MS, maxWait: REEVALUATION_TIMEOUT_MS },
   );
   return getCharacteristic(db, id);
+}
+
+/**
+ * Changes only the settings given: the others keep their stored values, and `null` clears an optional one;
+ * the result is then checked whole, as on setup (`updateCharacteristic`).
+ */
+export async function changeCharacteristic(
+  db: PrismaClient,
+  id: number,
+  changes: Omit<TCharacteristicChange, "changedBy">,
+  options: { now: Date; changedBy: string },
+) {
+  const merged = { ...(await getCharacteristic(db, id)), ...changes };
+  return updateCharacteristic(
+    db,
+    id,
+    {
+      processId: merged.processId,
+      name: merged.name,
+      unit: merged.unit,
+      chartType: merged.chartType,
+      subgroupSize: merged.subgroupSize,
+      target: merged.target ?? undefined,
+      lowerSpecLimit: merged.lowerSpecLimit ?? undefined,
+      upperSpecLimit: merged.upperSpecLimit ?? undefined,
+      ruleSet: merged.ruleSet,
+      safetyRelated: merged.safetyRelated,
+      description: merged.description ?? undefined,
+    },
+    options,
+  );
 }
 
 /** The characteristic as a plain object, with its subgroup count and the limit set new points meet. */
