@@ -156,7 +156,7 @@ export function ImportForm({ characteristic, zone }: ImportFormProps) {
                 <span>Times written without a zone are</span>
                 <select value={zoneless} onChange={(event) => setZoneless(event.target.value)}>
                   <option value="">Not stated: such times are refused</option>
-                  {zone !== "UTC" && <option value={SITE_ZONE}>Clock time in {zone}, the site&apos;s zone (summer time followed)</option>}
+                  {zone !== "UTC" && <option value={SITE_ZONE}>Clock time in {zone}, the site&apos;s zone</option>}
                   <optgroup label="At a fixed UTC offset">
                     {OFFSETS.map((offset) => (
                       <option key={offset} value={offset}>
