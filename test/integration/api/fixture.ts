@@ -1,11 +1,14 @@
 /**
  * The plant the API tests work on: a fresh database (test/integration/intake/database.ts) with an X-bar and
  * R characteristic (subgroups of 5) and a p chart (samples of 200), and the route handlers pointed at it.
- * Measurements are invented, deterministic values around a 2.00 mm wall.
+ * Measurements are invented, deterministic values around a 2.00 mm wall. The CSV import routes get their
+ * own database (`registerImportRoutesDatabase`).
  */
-import { afterAll } from "vitest";
+import { afterAll, beforeAll, expect, vi } from "vitest";
 import { setApiDatabaseForTests } from "@/src/api/database";
 import { createCharacteristic } from "@/src/characteristics/setup";
+import { environment } from "@/src/config/env";
+import { openImportTestDatabase, type TImportHarness } from "@/test/integration/imports/harness";
 import { registerTestDatabase, type TTestDatabase } from "@/test/integration/intake/database";
 
 export interface TApiFixture extends TTestDatabase {
@@ -37,6 +40,26 @@ export function registerApiFixture(label: string): () => Promise<TApiFixture> {
     });
     return { ...database, wallId: wall.id, shortShotsId: shortShots.id };
   };
+}
+
+/**
+ * The database of the CSV import routes: a fresh file (test/integration/imports/harness.ts), with the route
+ * handlers' Prisma client and DATABASE_URL both pointed at it. The import routes open their own SQLite
+ * connection and keep rejected-rows files beside the database, both found through the environment
+ * (src/config/env.ts), which is read once per test file; so this must run before any handler of the file.
+ */
+export function registerImportRoutesDatabase(label: string): TImportHarness {
+  const harness = openImportTestDatabase(label);
+  beforeAll(() => {
+    setApiDatabaseForTests(harness.prisma);
+    vi.stubEnv("DATABASE_URL", `file:${harness.databaseFile}`);
+    expect(environment().databaseFile).toBe(harness.databaseFile);
+  });
+  afterAll(() => {
+    setApiDatabaseForTests(undefined);
+    vi.unstubAllEnvs();
+  });
+  return harness;
 }
 
 const OFFSETS = [-0.02, -0.01, 0, 0.01, 0.02];
