@@ -318,8 +318,11 @@ export type TCorrectionInput = z.infer<typeof ZCorrectionInput>;
 
 /** Turns zod issues into `{ path, message }` pairs for API answers and form messages. */
 export function describeIssues(error: z.ZodError): { path: string; message: string }[] {
-  return error.issues.map((issue) => ({
-    path: issue.path.map(String).join("."),
-    message: issue.message,
-  }));
+  // An unknown field is named by its own path ("subgroups.0.colour"), rather than by zod's one issue on the
+  // object that holds it, so the caller sees which field to remove.
+  return error.issues.flatMap((issue) =>
+    issue.code === "unrecognized_keys"
+      ? issue.keys.map((key) => ({ path: [...issue.path, key].map(String).join("."), message: "is not a known field" }))
+      : [{ path: issue.path.map(String).join("."), message: issue.message }],
+  );
 }

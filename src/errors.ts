@@ -42,7 +42,7 @@ export function invalidInput(message: string, error: z.ZodError, prefix = ""): A
 export function parseInput<TSchema extends z.ZodType>(schema: TSchema, input: unknown, what: string): z.infer<TSchema> {
   const parsed = schema.safeParse(input);
   if (!parsed.success) {
-    throw invalidInput(`The ${what} is not valid: ${describeIssues(parsed.error).map(describeIssue).join("; ")}`, parsed.error);
+    throw invalidInput(`The ${what} is not valid: ${describeIssues(parsed.error).map(describeIssue).join("; ")}.`, parsed.error);
   }
   return parsed.data;
 }

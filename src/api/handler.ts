@@ -8,8 +8,7 @@
  * and turns every failure into the one error shape (problem.ts). Handlers stay a few lines long.
  */
 import { z } from "zod";
-import { describeIssues } from "@/shared/intake";
-import { AppError, type TIssue } from "@/src/errors";
+import { AppError, parseInput } from "@/src/errors";
 import type { PrismaClient } from "@/src/db/connect";
 import { readJsonBody } from "./body";
 import { apiDatabase } from "./database";
@@ -61,33 +60,12 @@ export type TAnswerWithDates<T> = T extends string
       ? { readonly [Key in keyof T]: TAnswerWithDates<T[Key]> }
       : T;
 
-/**
- * The issues of a failed parse, with each unknown field named by its own path ("subgroups.0.colour")
- * rather than zod's one issue on the object that holds it, so a caller sees which field to remove.
- */
-function issuesOf(error: z.ZodError): TIssue[] {
-  return error.issues.flatMap((issue) =>
-    issue.code === "unrecognized_keys"
-      ? issue.keys.map((key) => ({ path: [...issue.path, key].map(String).join("."), message: "is not a known field" }))
-      : describeIssues(new z.ZodError([issue])),
-  );
-}
-
 /** An answer with the route's alternative success status (`answer.alternative` in its declaration). */
 export class StatusAnswer<T> {
   constructor(
     readonly status: 200 | 201,
     readonly answer: T,
   ) {}
-}
-
-/** `input` parsed with `schema`, or an "invalid-input" AppError naming every issue. */
-function validated<TSchema extends z.ZodType>(schema: TSchema, input: unknown, what: string): z.output<TSchema> {
-  const parsed = schema.safeParse(input);
-  if (parsed.success) return parsed.data;
-  const issues = issuesOf(parsed.error);
-  const listed = issues.map((issue) => (issue.path === "" ? issue.message : `${issue.path} ${issue.message}`)).join("; ");
-  throw new AppError("invalid-input", `The ${what} is not valid: ${listed}.`, issues);
 }
 
 /** A Next.js route handler for `route`, running `handle` with validated input. */
@@ -106,9 +84,9 @@ export function apiHandler<TRoute extends TApiRoute>(
           `The API answers only callers on this machine until API tokens exist: ${refusal}.`,
         );
       }
-      const params = route.params ? validated(route.params, await context.params, "path") : undefined;
-      const query = route.query ? validated(route.query, queryObject(new URL(request.url)), "query") : undefined;
-      const body = route.body ? validated(route.body, await readJsonBody(request), "request body") : undefined;
+      const params = route.params ? parseInput(route.params, await context.params, "path") : undefined;
+      const query = route.query ? parseInput(route.query, queryObject(new URL(request.url)), "query") : undefined;
+      const body = route.body ? parseInput(route.body, await readJsonBody(request), "request body") : undefined;
       const result = await handle({
         database: await apiDatabase(),
         params,

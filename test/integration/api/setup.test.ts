@@ -142,7 +142,7 @@ const cases: Record<string, TRefusal> = {
     status: 422,
     code: "invalid-input",
     // The body alone is valid; the settings it leads to are not (the target was cleared above).
-    message: "The characteristic is not valid: upperSpecLimit must be above the lower specification limit",
+    message: "The characteristic is not valid: upperSpecLimit must be above the lower specification limit.",
     issues: [{ path: "upperSpecLimit", message: "must be above the lower specification limit" }],
   },
   "a change without the name of who makes it": invalidField(() => change(fixture.wallId, { ruleSet: "we" }), "request body", "changedBy", "Invalid input: expected string, received undefined"),

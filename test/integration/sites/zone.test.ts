@@ -55,9 +55,9 @@ describe("setting a site's zone", () => {
   });
 
   test.each([
-    { zone: "Europe/Atlantis", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC"' },
-    { zone: "CEST", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC"' },
-    { zone: "", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC"' },
+    { zone: "Europe/Atlantis", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC".' },
+    { zone: "CEST", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC".' },
+    { zone: "", message: 'The site time zone is not valid: zone must be an IANA time zone name such as "Europe/London", or "UTC".' },
   ])("the zone $zone is refused with its field named, and nothing changes", async ({ zone, message }) => {
     const { db, processId } = await testDatabase();
     const [site] = await siteZones(db);
