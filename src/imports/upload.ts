@@ -58,6 +58,17 @@ function optionsFromQuery(url: URL): unknown {
   }
 }
 
+const TOO_LARGE = `The file is larger than the limit of ${MAX_IMPORT_BYTES / 1024 / 1024} MiB.`;
+
+/**
+ * Refuses (413) a body whose declared length is over MAX_IMPORT_BYTES before any of it is read; a body
+ * without a declared length (chunked) is measured as it is spooled.
+ */
+function refuseDeclaredOversize(request: Request): void {
+  const declared = Number(request.headers.get("content-length") ?? Number.NaN);
+  if (declared > MAX_IMPORT_BYTES) throw new ApiProblem(413, "payload-too-large", TOO_LARGE);
+}
+
 /** Writes the body to a new temporary file, refusing (413) past MAX_IMPORT_BYTES. */
 async function spool(body: ReadableStream<Uint8Array>): Promise<{ directory: string; file: string }> {
   const directory = await mkdtemp(path.join(os.tmpdir(), "assignable-upload-"));
@@ -69,7 +80,7 @@ async function spool(body: ReadableStream<Uint8Array>): Promise<{ directory: str
       async function* capped(source: AsyncIterable<Uint8Array>) {
         for await (const chunk of source) {
           bytes += chunk.byteLength;
-          if (bytes > MAX_IMPORT_BYTES) throw new ApiProblem(413, "payload-too-large", `The file is larger than the limit of ${MAX_IMPORT_BYTES / 1024 / 1024} MiB.`);
+          if (bytes > MAX_IMPORT_BYTES) throw new ApiProblem(413, "payload-too-large", TOO_LARGE);
           yield chunk;
         }
       },
@@ -98,6 +109,7 @@ export async function handleImportUpload(request: Request, context: TRouteContex
     options = parseInput(ZImportOptions, optionsFromQuery(new URL(request.url)), "import options");
     await getCharacteristic(await apiDatabase(), characteristicId);
     if (request.body === null) throw new AppError("invalid-input", "The request carries no file: send the CSV file as the request body.");
+    refuseDeclaredOversize(request);
     upload = await spool(request.body);
   } catch (error) {
     return problemAnswer(error);

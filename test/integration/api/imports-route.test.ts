@@ -194,6 +194,13 @@ describe("refused before the file is read, with nothing written", () => {
       message: "The API answers only callers on this machine until API tokens exist: the caller 192.168.10.20 is not on this machine.",
       issues: [],
     }),
+    "a declared length over the 256 MiB limit": () => ({
+      headers: { "content-length": String(MAX_IMPORT_BYTES + 1) },
+      status: 413,
+      code: "payload-too-large",
+      message: "The file is larger than the limit of 256 MiB.",
+      issues: [],
+    }),
     "a page elsewhere calling through a local browser (another host name)": () => ({
       headers: { host: "plant-dashboard.example:3000" },
       status: 403,
