@@ -194,7 +194,7 @@ export function ImportForm({ characteristic, zone }: ImportFormProps) {
           <progress id="import-progress" max={1} value={progress.fraction} />
         </div>
       )}
-      <p className={styles.visuallyHidden} aria-live="polite" role="status">
+      <p className="visually-hidden" aria-live="polite" role="status">
         {announcement}
       </p>
 
